@@ -1,0 +1,66 @@
+// tensorsieve form GROUP SPEC | survey SPEC
+#include "cli/commands.hpp"
+#include "core/error.hpp"
+#include "geometry/sample_frame.hpp"
+#include "report/form_report.hpp"
+#include "report/group_report.hpp"
+
+#include <memory>
+
+namespace ts::cli {
+
+void setup_form(CLI::App& app) {
+  struct Opts {
+    OutputOptions out;
+    std::string group, spec, view = "auto", z, x;
+  };
+  auto o = std::make_shared<Opts>();
+  auto* cmd = app.add_subcommand("form", "the symmetry-allowed form of a tensor in a point group");
+  cmd->add_option("group", o->group, "point group symbol, e.g. 4mm, -3'm', m'm2'")->required();
+  cmd->add_option("spec", o->spec, "tensor: Jahn symbol (V[V2]) or index spec (\"d_ijk: polar, sym(jk)\")")->required();
+  cmd->add_option("--z", o->z, "report components in a frame with z along this crystal direction, e.g. [110]");
+  cmd->add_option("--x", o->x, "x axis of that frame (perpendicular to z), e.g. [001]");
+  cmd->add_option("--view", o->view, "auto, components, matrix, dmatrix or voigt")->capture_default_str();
+  add_output_options(*cmd, o->out);
+  cmd->callback([o] {
+    const auto& cat = GroupCatalogue::builtin();
+    const NamedGroup& g = cat.get(o->group);
+    TensorSpec spec = parse_tensor_spec(o->spec);
+    View view = parse_view(o->view);
+    Format format = parse_format(o->out.format);
+    FrameContext fc;
+    Frame frame;
+    if (!o->z.empty() || !o->x.empty()) {
+      if (o->z.empty() || o->x.empty())
+        fail(ErrorKind::usage, "a frame needs both --z and --x", "--z/--x", "--z [110] --x [001]");
+      frame = frame_from_directions(o->z, o->x, g.group.lattice(), "--z/--x");
+      fc.axes = frame.labels;
+      fc.crystal_frame = false;
+    } else if (g.group.lattice() == LatticeKind::hexagonal) {
+      fc.axes = {"[100]", "[120]", "[001]"};
+    }
+    AllowedForm form = allowed_form(spec, g.group, frame);
+    emit(o->out, write_form(form, GroupContext::of(g), fc, format, view));
+  });
+}
+
+void setup_survey(CLI::App& app) {
+  struct Opts {
+    OutputOptions out;
+    std::string spec;
+    bool magnetic = false;
+  };
+  auto o = std::make_shared<Opts>();
+  auto* cmd = app.add_subcommand("survey", "count a tensor's independent components in every point group");
+  cmd->add_option("spec", o->spec, "tensor: Jahn symbol or index spec")->required();
+  cmd->add_flag("-m,--magnetic", o->magnetic, "survey the 122 magnetic point-group types (default: the 32 classes)");
+  add_output_options(*cmd, o->out);
+  cmd->callback([o] {
+    const auto& cat = GroupCatalogue::builtin();
+    TensorSpec spec = parse_tensor_spec(o->spec);
+    auto groups = o->magnetic ? cat.types() : cat.crystallographic_types();
+    emit(o->out, write_survey(spec, survey(spec, groups), parse_format(o->out.format)));
+  });
+}
+
+} // namespace ts::cli

@@ -1,0 +1,24 @@
+// One setup_/run_ pair per subcommand. setup_ binds options into a shared
+// struct; the callback calls the library and a writer, nothing else.
+#pragma once
+
+#include <CLI/CLI.hpp>
+
+#include <string>
+
+namespace ts::cli {
+
+struct OutputOptions {
+  std::string format = "text";
+  std::string output = "-";
+};
+void add_output_options(CLI::App& cmd, OutputOptions& o);
+void emit(const OutputOptions& o, const std::string& text); // atomic file write or stdout
+
+void setup_groups(CLI::App& app);
+void setup_group(CLI::App& app);
+void setup_identify(CLI::App& app);
+void setup_form(CLI::App& app);
+void setup_survey(CLI::App& app);
+
+} // namespace ts::cli

@@ -1,0 +1,42 @@
+// tensorsieve: which responses a crystal, film or interface may show, from
+// Neumann's principle on (magnetic) point groups. This file only wires the
+// subcommands and turns errors into messages and exit codes (docs/cli.md).
+#include "cli/commands.hpp"
+#include "core/error.hpp"
+#include "report/output_file.hpp"
+
+#include <iostream>
+
+namespace ts::cli {
+
+void add_output_options(CLI::App& cmd, OutputOptions& o) {
+  cmd.add_option("-f,--format", o.format, "text (default), markdown, latex or json")->capture_default_str();
+  cmd.add_option("-o,--output", o.output, "write the report to this file instead of standard output");
+}
+
+void emit(const OutputOptions& o, const std::string& text) { write_output(o.output, text); }
+
+} // namespace ts::cli
+
+int main(int argc, char** argv) {
+  CLI::App app{"tensorsieve: symmetry-allowed transport and optical responses of crystals, films and interfaces"};
+  app.set_version_flag("--version", std::string("tensorsieve ") + TENSORSIEVE_VERSION);
+  app.require_subcommand(1);
+  ts::cli::setup_groups(app);
+  ts::cli::setup_group(app);
+  ts::cli::setup_identify(app);
+  ts::cli::setup_form(app);
+  ts::cli::setup_survey(app);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    return app.exit(e) == 0 ? 0 : static_cast<int>(ts::ErrorKind::usage);
+  } catch (const ts::Error& e) {
+    std::cerr << "tensorsieve: error: " << e.what() << "\n";
+    return e.exit_code();
+  } catch (const std::exception& e) {
+    std::cerr << "tensorsieve: internal error: " << e.what() << "\n";
+    return static_cast<int>(ts::ErrorKind::internal);
+  }
+  return 0;
+}

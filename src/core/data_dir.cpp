@@ -1,0 +1,48 @@
+#include "core/data_dir.hpp"
+
+#include "core/error.hpp"
+
+#include <cstdlib>
+#include <filesystem>
+#include <vector>
+
+namespace fs = std::filesystem;
+
+namespace ts {
+
+namespace {
+std::vector<std::string> candidate_roots() {
+  std::vector<std::string> c;
+  if (const char* env = std::getenv("TENSORSIEVE_DATA"); env && *env) c.emplace_back(env);
+  c.emplace_back(TENSORSIEVE_SOURCE_DATA_DIR);
+  c.emplace_back(TENSORSIEVE_INSTALL_DATA_DIR);
+  std::error_code ec;
+  fs::path exe = fs::read_symlink("/proc/self/exe", ec);
+  if (!ec) c.push_back((exe.parent_path().parent_path() / "share" / "tensorsieve").string());
+  return c;
+}
+} // namespace
+
+std::string data_directory() {
+  std::string tried;
+  for (const auto& root : candidate_roots()) {
+    std::error_code ec;
+    if (fs::is_directory(fs::path(root) / "groups", ec)) return root;
+    tried += (tried.empty() ? "" : ", ") + root + "/groups";
+  }
+  fail(ErrorKind::bad_file, "cannot find the groups/ data directory (tried " + tried + ")", "",
+       "set TENSORSIEVE_DATA to the directory that contains groups/");
+}
+
+std::string response_catalogue_path() {
+  std::string root = data_directory();
+  for (const char* rel : {"src/response/catalogue.toml", "responses/catalogue.toml"}) {
+    std::error_code ec;
+    fs::path p = fs::path(root) / rel;
+    if (fs::is_regular_file(p, ec)) return p.string();
+  }
+  fail(ErrorKind::bad_file, "cannot find the response catalogue under " + root, "",
+       "src/response/catalogue.toml in the source tree or responses/catalogue.toml when installed");
+}
+
+} // namespace ts

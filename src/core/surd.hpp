@@ -1,0 +1,53 @@
+// Exact real numbers of the form Σ r_k·√s_k (r_k rational, s_k distinct
+// square-free positive integers). Components of a tensor seen in a rotated
+// sample frame are such numbers (√2, √6, √3/3 ...). Square roots of distinct
+// square-free integers are linearly independent over Q, so a Surd is zero
+// exactly when every coefficient is: zeros are decided without rounding and
+// products like √2·√3 are canonicalised to √6.
+#pragma once
+
+#include "core/qsqrt3.hpp"
+
+#include <cstdint>
+#include <string>
+#include <utility>
+#include <vector>
+
+namespace ts {
+
+class Surd {
+public:
+  Surd() = default;
+  Surd(const Rational& r) { add_term(1, r); }   // NOLINT
+  Surd(const QSqrt3& q) {                        // NOLINT
+    add_term(1, q.rational_part());
+    add_term(3, q.sqrt3_part());
+  }
+  // √q for a positive rational q.
+  static Surd sqrt_of(const Rational& q);
+
+  bool is_zero() const { return terms_.empty(); }
+  bool is_rational() const { return terms_.empty() || (terms_.size() == 1 && terms_[0].first == 1); }
+  Rational rational_value() const { return terms_.empty() || terms_[0].first != 1 ? Rational() : terms_[0].second; }
+  int sign() const; // exact
+  double to_double() const;
+  const std::vector<std::pair<std::int64_t, Rational>>& terms() const { return terms_; }
+
+  friend Surd operator+(const Surd& a, const Surd& b);
+  friend Surd operator-(const Surd& a, const Surd& b) { return a + (-b); }
+  Surd operator-() const;
+  friend Surd operator*(const Surd& a, const Surd& b);
+  Surd& operator+=(const Surd& b) { return *this = *this + b; }
+  friend bool operator==(const Surd& a, const Surd& b) { return a.terms_ == b.terms_; }
+  friend bool operator!=(const Surd& a, const Surd& b) { return !(a == b); }
+  friend bool operator<(const Surd& a, const Surd& b); // structural order, for sorting only
+
+private:
+  void add_term(std::int64_t radicand, const Rational& coef);
+  std::vector<std::pair<std::int64_t, Rational>> terms_; // sorted by radicand, no zero coefficients
+};
+
+// Split n > 0 as g^2 · s with s square-free; returns {g, s}.
+std::pair<std::int64_t, std::int64_t> square_free_split(std::int64_t n);
+
+} // namespace ts

@@ -1,0 +1,112 @@
+#include "group/identify.hpp"
+
+#include <algorithm>
+
+namespace ts {
+
+namespace {
+
+// Scale a direction so its squared length is rational where possible
+// (components that are all multiples of √3 are divided by √3).
+bool rational_length(Vec3& v) {
+  bool all_sqrt3 = true;
+  for (const auto& c : v)
+    if (!c.rational_part().is_zero()) all_sqrt3 = false;
+  if (all_sqrt3)
+    for (auto& c : v) c = QSqrt3(c.sqrt3_part());
+  return dot(v, v).is_rational();
+}
+
+std::vector<Vec3> candidate_lines(const PointGroup& g) {
+  std::vector<Vec3> lines;
+  auto add = [&](Vec3 v) {
+    if (is_zero(v) || !rational_length(v)) return;
+    for (const auto& l : lines)
+      if (parallel(l, v)) return;
+    lines.push_back(v);
+  };
+  for (const auto& op : g.operations()) add(op.kind().axis);
+  std::size_t axes = lines.size();
+  for (std::size_t i = 0; i < axes; ++i)
+    for (std::size_t j = i + 1; j < axes; ++j) add(cross(lines[i], lines[j]));
+  const Vec3 e[3] = {{QSqrt3(1), QSqrt3(0), QSqrt3(0)}, {QSqrt3(0), QSqrt3(1), QSqrt3(0)}, {QSqrt3(0), QSqrt3(0), QSqrt3(1)}};
+  for (const auto& b : e) add(b);
+  std::size_t now = lines.size();
+  for (std::size_t i = 0; i < now; ++i)
+    for (const auto& b : e) add(cross(lines[i], b));
+  return lines;
+}
+
+// Does the frame with rows r carry op g onto some operation of the standard group?
+bool maps_into(const std::array<Vec3, 3>& r, const std::array<Rational, 3>& n2, const Operation& g,
+               const PointGroup& standard) {
+  QSqrt3 X[3][3];
+  for (int i = 0; i < 3; ++i) {
+    Vec3 gr = g.R * r[i];
+    for (int j = 0; j < 3; ++j) X[j][i] = dot(r[j], gr);
+  }
+  for (const auto& h : standard.operations()) {
+    if (h.primed != g.primed) continue;
+    bool ok = true;
+    for (int i = 0; i < 3 && ok; ++i)
+      for (int j = 0; j < 3 && ok; ++j) {
+        const QSqrt3& hv = h.R(i, j);
+        if (hv.sign() != X[i][j].sign()) ok = false;
+        else if (!hv.is_zero() && hv * hv * QSqrt3(n2[i] * n2[j]) != X[i][j] * X[i][j]) ok = false;
+      }
+    if (ok) return true;
+  }
+  return false;
+}
+
+} // namespace
+
+Identification identify(const PointGroup& group, const GroupCatalogue& catalogue) {
+  Identification id;
+  const CrystalClass* family = catalogue.crystallographic_type_of(group);
+  if (!family) fail(ErrorKind::bad_group, "the operations do not form a crystallographic point group");
+  MagneticKind kind = MagneticKind::colourless;
+  std::string unitary = family->name;
+  if (group.is_grey()) {
+    kind = MagneticKind::grey;
+  } else if (group.is_magnetic()) {
+    kind = MagneticKind::black_white;
+    PointGroup H = group.unitary_part();
+    if (2 * H.order() != group.order())
+      fail(ErrorKind::bad_group, "the unprimed operations are not an index-2 subgroup");
+    const CrystalClass* ht = catalogue.crystallographic_type_of(H);
+    if (!ht) fail(ErrorKind::bad_group, "the unprimed operations do not form a crystallographic point group");
+    unitary = ht->name;
+  }
+  for (const auto* t : catalogue.types())
+    if (t->family == family->name && t->kind == kind && t->unitary_type == unitary) id.type = t;
+  if (!id.type) fail(ErrorKind::bad_group, "no magnetic point-group type matches these operations");
+  for (const auto& g : catalogue.groups())
+    if (g.group.order() == group.order() && g.group.lattice() == group.lattice() && g.group == group) {
+      id.same_setting = &g;
+      break;
+    }
+  const PointGroup& standard = id.type->group;
+  std::vector<Operation> gens = group.generators();
+  std::vector<Vec3> lines = candidate_lines(group);
+  for (const auto& zl : lines)
+    for (int zs : {1, -1}) {
+      Vec3 z = zs > 0 ? zl : -zl;
+      for (const auto& xl : lines)
+        for (int xs : {1, -1}) {
+          Vec3 x = xs > 0 ? xl : -xl;
+          if (!dot(x, z).is_zero()) continue;
+          Vec3 y = cross(z, x);
+          if (!rational_length(y)) continue;
+          std::array<Vec3, 3> r{x, y, z};
+          std::array<Rational, 3> n2{dot(x, x).rational_part(), dot(y, y).rational_part(), dot(z, z).rational_part()};
+          if (std::all_of(gens.begin(), gens.end(), [&](const Operation& g) { return maps_into(r, n2, g, standard); })) {
+            id.standard_axes = r;
+            return id;
+          }
+        }
+    }
+  fail(ErrorKind::internal, "found the type " + id.type->symbol + " but no rotation to its standard setting");
+}
+
+} // namespace ts

@@ -1,0 +1,24 @@
+// Identification of an arbitrary finite set of point operations as one of
+// the 122 magnetic point-group types, with the rotation that carries it to the
+// type's standard setting.
+#pragma once
+
+#include "group/group_catalogue.hpp"
+
+#include <array>
+
+namespace ts {
+
+struct Identification {
+  const NamedGroup* type = nullptr;         // standard representative of the type
+  const NamedGroup* same_setting = nullptr; // catalogue group with exactly these operations, if any
+  // Directions in the input frame that become x, y, z of the standard setting
+  // (exact, unnormalised): the rows of the rotation Q with Q G Q^T = standard.
+  std::array<Vec3, 3> standard_axes{};
+};
+
+// Throws Error(bad_group) when the operations are not a crystallographic
+// (magnetic) point group.
+Identification identify(const PointGroup& group, const GroupCatalogue& catalogue);
+
+} // namespace ts

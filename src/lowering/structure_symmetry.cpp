@@ -1,0 +1,408 @@
+#include "lowering/structure_symmetry.hpp"
+
+#include "core/error.hpp"
+
+#include <spglib.h>
+
+#include <cmath>
+#include <map>
+#include <memory>
+#include <mutex>
+#include <set>
+#include <sstream>
+
+namespace ts {
+
+namespace {
+
+using Mat = std::array<std::array<double, 3>, 3>;
+using IMat = std::array<std::array<int, 3>, 3>;
+
+const char* const kBlockKeys = "lattice (or a, b, c, alpha, beta, gamma), sites, symprec";
+const char* const kSiteKeys = "species, at, moment";
+const char* const kSpglibValid =
+    "atoms of one species further apart than symprec (merge duplicates or lower symprec); a structure that is "
+    "only nearly symmetric may need a larger symprec";
+
+std::string number_text(double x) {
+  std::ostringstream s;
+  s.precision(10);
+  s << x;
+  return s.str();
+}
+
+// "cell.toml:[structure], line 7, column 14" when toml++ knows the position.
+std::string locate(const std::string& where, const toml::source_region& r) {
+  if (r.begin.line == 0) return where; // built in code, not read from a file
+  return where + ", line " + std::to_string(r.begin.line) + ", column " + std::to_string(r.begin.column);
+}
+
+std::string locate(const std::string& where, const toml::node* n) { return n ? locate(where, n->source()) : where; }
+
+[[noreturn]] void bad(const std::string& where, const toml::node* n, const std::string& field,
+                      const std::string& problem, const std::string& valid) {
+  fail(ErrorKind::bad_file, field + ": " + problem, locate(where, n), valid);
+}
+
+const char* type_name(const toml::node& n) {
+  switch (n.type()) {
+  case toml::node_type::table: return "a table";
+  case toml::node_type::array: return "an array";
+  case toml::node_type::string: return "a string";
+  case toml::node_type::integer: return "an integer";
+  case toml::node_type::floating_point: return "a float";
+  case toml::node_type::boolean: return "a boolean";
+  case toml::node_type::date: return "a date";
+  case toml::node_type::time: return "a time";
+  case toml::node_type::date_time: return "a date-time";
+  default: return "nothing";
+  }
+}
+
+double read_number(const toml::node& n, const std::string& where, const std::string& field,
+                   const std::string& valid) {
+  double x = 0;
+  if (auto i = n.as_integer()) {
+    x = static_cast<double>(i->get());
+  } else if (auto f = n.as_floating_point()) {
+    x = f->get();
+  } else {
+    bad(where, &n, field, std::string("expected a number, got ") + type_name(n), valid);
+  }
+  if (!std::isfinite(x)) bad(where, &n, field, "expected a finite number, got " + number_text(x), valid);
+  return x;
+}
+
+std::array<double, 3> read_vec3(const toml::node& n, const std::string& where,
+                                const std::string& field, const std::string& valid) {
+  const toml::array* a = n.as_array();
+  if (!a) bad(where, &n, field, std::string("expected an array of 3 numbers, got ") + type_name(n), valid);
+  if (a->size() != 3)
+    bad(where, &n, field, "expected 3 numbers, got " + std::to_string(a->size()), valid);
+  std::array<double, 3> v{};
+  for (std::size_t i = 0; i < 3; ++i)
+    v[i] = read_number(*a->get(i), where, field + "[" + std::to_string(i + 1) + "]", valid);
+  return v;
+}
+
+double det3(const Mat& m) {
+  return m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) -
+         m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0]) +
+         m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]);
+}
+
+Mat inverse3(const Mat& m) {
+  const double d = det3(m);
+  Mat r{};
+  r[0][0] = (m[1][1] * m[2][2] - m[1][2] * m[2][1]) / d;
+  r[0][1] = (m[0][2] * m[2][1] - m[0][1] * m[2][2]) / d;
+  r[0][2] = (m[0][1] * m[1][2] - m[0][2] * m[1][1]) / d;
+  r[1][0] = (m[1][2] * m[2][0] - m[1][0] * m[2][2]) / d;
+  r[1][1] = (m[0][0] * m[2][2] - m[0][2] * m[2][0]) / d;
+  r[1][2] = (m[0][2] * m[1][0] - m[0][0] * m[1][2]) / d;
+  r[2][0] = (m[1][0] * m[2][1] - m[1][1] * m[2][0]) / d;
+  r[2][1] = (m[0][1] * m[2][0] - m[0][0] * m[2][1]) / d;
+  r[2][2] = (m[0][0] * m[1][1] - m[0][1] * m[1][0]) / d;
+  return r;
+}
+
+double norm(const std::array<double, 3>& v) { return std::sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2]); }
+
+std::array<double, 3> to_cartesian(const Mat& lattice, const std::array<double, 3>& f) {
+  std::array<double, 3> r{};
+  for (int i = 0; i < 3; ++i)
+    for (int k = 0; k < 3; ++k) r[i] += lattice[k][i] * f[k];
+  return r;
+}
+
+// cos of an angle in degrees, exact at the angles cells are usually given with,
+// so that a = b = c, 90, 90, 90 gives a lattice with exact zeros.
+double cos_degrees(double deg) {
+  if (deg == 90) return 0;
+  if (deg == 60) return 0.5;
+  if (deg == 120) return -0.5;
+  return std::cos(deg * M_PI / 180);
+}
+
+Mat lattice_from_parameters(const toml::table& block, const std::string& where) {
+  static const char* names[6] = {"a", "b", "c", "alpha", "beta", "gamma"};
+  const std::string valid =
+      "a, b, c > 0 in Angstrom and alpha, beta, gamma strictly between 0 and 180 degrees "
+      "(alpha = angle(b, c), beta = angle(a, c), gamma = angle(a, b))";
+  double p[6];
+  for (int i = 0; i < 6; ++i) {
+    const toml::node* n = block.get(names[i]);
+    if (!n)
+      bad(where, &block, names[i], "missing; the cell parameters need all six of a, b, c, alpha, beta, gamma",
+          valid + ", or give lattice = [[ax, ay, az], [bx, by, bz], [cx, cy, cz]] instead");
+    p[i] = read_number(*n, where, names[i], valid);
+    if (i < 3 && p[i] <= 0) bad(where, n, names[i], "must be positive, got " + number_text(p[i]), valid);
+    if (i >= 3 && (p[i] <= 0 || p[i] >= 180))
+      bad(where, n, names[i], "must lie strictly between 0 and 180 degrees, got " + number_text(p[i]), valid);
+  }
+  const double ca = cos_degrees(p[3]), cb = cos_degrees(p[4]), cg = cos_degrees(p[5]);
+  const double sg = std::sqrt(1 - cg * cg);
+  const double cy = (ca - cb * cg) / sg;
+  const double cz2 = 1 - cb * cb - cy * cy;
+  if (cz2 <= 1e-12)
+    bad(where, block.get("alpha"), "alpha, beta, gamma",
+        "these angles do not form a cell (each must be smaller than the sum of the other two, "
+        "and all three below 360 together)",
+        valid);
+  // a along x, b in the xy plane, c completing a right-handed set.
+  Mat m{};
+  m[0] = {p[0], 0, 0};
+  m[1] = {p[1] * cg, p[1] * sg, 0};
+  m[2] = {p[2] * cb, p[2] * cy, p[2] * std::sqrt(cz2)};
+  return m;
+}
+
+Mat read_lattice(const toml::table& block, const std::string& where) {
+  const toml::node* lat = block.get("lattice");
+  bool any_parameter = false;
+  for (const char* k : {"a", "b", "c", "alpha", "beta", "gamma"}) any_parameter |= block.contains(k);
+  const std::string valid =
+      "lattice = [[ax, ay, az], [bx, by, bz], [cx, cy, cz]] (rows a, b, c in Cartesian Angstrom), "
+      "or a, b, c (Angstrom) and alpha, beta, gamma (degrees)";
+  if (lat && any_parameter)
+    bad(where, lat, "lattice", "given together with cell parameters (a, b, c, alpha, beta, gamma); give one of the two",
+        valid);
+  if (!lat && !any_parameter) bad(where, &block, "lattice", "missing", valid);
+  Mat m{};
+  if (lat) {
+    const toml::array* rows = lat->as_array();
+    if (!rows) bad(where, lat, "lattice", std::string("expected an array of 3 rows, got ") + type_name(*lat), valid);
+    if (rows->size() != 3)
+      bad(where, lat, "lattice", "expected 3 rows (a, b, c), got " + std::to_string(rows->size()), valid);
+    for (std::size_t i = 0; i < 3; ++i)
+      m[i] = read_vec3(*rows->get(i), where, "lattice[" + std::to_string(i + 1) + "]", valid);
+  } else {
+    m = lattice_from_parameters(block, where);
+  }
+  const double scale = norm(m[0]) * norm(m[1]) * norm(m[2]);
+  if (scale == 0 || std::fabs(det3(m)) < 1e-6 * scale)
+    bad(where, lat ? lat : &block, "lattice", "the three lattice vectors are (nearly) coplanar or zero",
+        "three linearly independent vectors a, b, c");
+  return m;
+}
+
+void reject_unknown_keys(const toml::table& t, const std::set<std::string>& known, const std::string& where,
+                         const std::string& prefix, const char* valid) {
+  for (auto&& [key, node] : t) {
+    if (!known.count(std::string(key.str())))
+      fail(ErrorKind::bad_file, prefix + std::string(key.str()) + ": unknown field",
+           key.source().begin.line ? locate(where, key.source()) : locate(where, &node),
+           std::string("fields: ") + valid);
+  }
+}
+
+AtomSite read_site(const toml::node& n, std::size_t index, const std::string& where, bool* has_moment) {
+  const std::string name = "sites[" + std::to_string(index + 1) + "]";
+  const std::string valid = std::string("{ species = \"Ti\", at = [x, y, z] (fractional), ") +
+                            "moment = [mx, my, mz] (Cartesian, optional) }";
+  const toml::table* t = n.as_table();
+  if (!t) bad(where, &n, name, std::string("expected a table, got ") + type_name(n), valid);
+  reject_unknown_keys(*t, {"species", "at", "moment"}, where, name + ".", kSiteKeys);
+  AtomSite site;
+  const toml::node* sp = t->get("species");
+  if (!sp) bad(where, t, name + ".species", "missing", valid);
+  if (!sp->is_string()) bad(where, sp, name + ".species", std::string("expected a string, got ") + type_name(*sp), valid);
+  site.species = sp->as_string()->get();
+  if (site.species.empty()) bad(where, sp, name + ".species", "empty", valid);
+  const toml::node* at = t->get("at");
+  if (!at) bad(where, t, name + ".at", "missing", valid);
+  site.frac = read_vec3(*at, where, name + ".at", valid);
+  if (const toml::node* mo = t->get("moment")) {
+    site.moment = read_vec3(*mo, where, name + ".moment", valid);
+    *has_moment = true;
+  }
+  return site;
+}
+
+// Two atoms on one spot make spglib fail with a bare "too close" message; say which.
+void reject_coincident_sites(const CrystalStructure& cell, const toml::array& sites, const std::string& where) {
+  for (std::size_t i = 0; i < cell.sites.size(); ++i)
+    for (std::size_t j = 0; j < i; ++j) {
+      std::array<double, 3> d{};
+      for (int k = 0; k < 3; ++k) {
+        d[k] = cell.sites[i].frac[k] - cell.sites[j].frac[k];
+        d[k] -= std::round(d[k]);
+      }
+      if (norm(to_cartesian(cell.lattice, d)) < 1e-3)
+        bad(where, sites.get(i)->as_table()->get("at"), "sites[" + std::to_string(i + 1) + "].at",
+            "lies on the same point as sites[" + std::to_string(j + 1) + "] (closer than 0.001 Angstrom)",
+            "each atom at its own position; list an atom once");
+    }
+}
+
+std::mutex spglib_mutex; // spglib 2.0's error code is one global variable
+
+std::string spglib_problem(const CrystalStructure& cell) {
+  const SpglibError code = spg_get_error_code();
+  std::string text = code == SPGLIB_SUCCESS ? "no result" : spg_get_error_message(code);
+  return "spglib found no symmetry for " + std::string(cell.magnetic ? "this magnetic" : "this") +
+         " structure (" + text + ")";
+}
+
+// Entries of point operations in Cartesian frames aligned with the lattice are
+// 0, ±1/2, ±1 and ±√3/2; removing the rounding noise of M^T W M^-T there lets
+// the exact group engine recognise them without a tolerance of its own.
+double snapped(double v) {
+  static const double exact[] = {0, 0.5, 1, 0.86602540378443864676};
+  for (double e : exact) {
+    if (std::fabs(v - e) < 1e-12) return e;
+    if (std::fabs(v + e) < 1e-12) return -e;
+  }
+  return v;
+}
+
+std::string trimmed(const char* s) {
+  std::string t(s);
+  while (!t.empty() && t.back() == ' ') t.pop_back();
+  return t;
+}
+
+} // namespace
+
+std::array<double, 3> fractional_to_cartesian(const CrystalStructure& cell, const std::array<double, 3>& f) {
+  return to_cartesian(cell.lattice, f);
+}
+
+CrystalStructure parse_structure(const toml::table& block, const std::string& where) {
+  reject_unknown_keys(block, {"lattice", "a", "b", "c", "alpha", "beta", "gamma", "sites", "symprec"}, where, "",
+                      kBlockKeys);
+  CrystalStructure cell;
+  cell.where = where;
+  cell.lattice = read_lattice(block, where);
+
+  const std::string sites_valid =
+      "sites = [ { species = \"Sr\", at = [0, 0, 0] }, { species = \"Ti\", at = [0.5, 0.5, 0.5] }, ... ]";
+  const toml::node* s = block.get("sites");
+  if (!s) bad(where, &block, "sites", "missing", sites_valid);
+  const toml::array* sites = s->as_array();
+  if (!sites) bad(where, s, "sites", std::string("expected an array of tables, got ") + type_name(*s), sites_valid);
+  if (sites->empty()) bad(where, s, "sites", "empty; a structure needs at least one atom", sites_valid);
+  bool has_moment = false;
+  for (std::size_t i = 0; i < sites->size(); ++i) cell.sites.push_back(read_site(*sites->get(i), i, where, &has_moment));
+  cell.magnetic = has_moment;
+  reject_coincident_sites(cell, *sites, where);
+
+  if (const toml::node* p = block.get("symprec")) {
+    const std::string valid = "a distance tolerance in Angstrom, 0 < symprec < 1 (default 1e-5)";
+    cell.symprec = read_number(*p, where, "symprec", valid);
+    if (!(cell.symprec > 0 && cell.symprec < 1))
+      bad(where, p, "symprec", "out of range: " + number_text(cell.symprec), valid);
+  }
+  return cell;
+}
+
+StructureSymmetry find_structure_symmetry(const CrystalStructure& cell) {
+  return find_structure_symmetry(cell, cell.symprec);
+}
+
+StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double symprec) {
+  const std::string where = cell.where.empty() ? std::string("crystal structure") : cell.where;
+  if (!(symprec > 0 && std::isfinite(symprec)))
+    fail(ErrorKind::bad_file, "symprec must be a positive distance, got " + number_text(symprec), where,
+         "0 < symprec < 1 Angstrom");
+  if (cell.sites.empty()) fail(ErrorKind::bad_file, "the structure has no atoms", where, "at least one site");
+
+  const std::size_t n = cell.sites.size();
+  double lattice[3][3]; // spglib: lattice vectors as columns
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j) lattice[i][j] = cell.lattice[j][i];
+  std::unique_ptr<double[][3]> positions(new double[n][3]);
+  std::vector<int> types(n);
+  std::vector<double> moments(3 * n);
+  std::map<std::string, int> type_of;
+  for (std::size_t i = 0; i < n; ++i) {
+    const AtomSite& s = cell.sites[i];
+    for (int k = 0; k < 3; ++k) {
+      positions[i][k] = s.frac[k];
+      moments[3 * i + k] = s.moment[k];
+    }
+    auto it = type_of.emplace(s.species, static_cast<int>(type_of.size()) + 1).first;
+    types[i] = it->second;
+  }
+
+  StructureSymmetry out;
+  out.symprec = symprec;
+  int n_ops = 0;
+  std::vector<IMat> rotations;
+  std::vector<bool> primed;
+  {
+    std::lock_guard<std::mutex> lock(spglib_mutex);
+    if (!cell.magnetic) {
+      SpglibDataset* ds = spg_get_dataset(lattice, positions.get(), types.data(), static_cast<int>(n), symprec);
+      if (!ds || ds->n_operations <= 0) {
+        std::string problem = spglib_problem(cell);
+        if (ds) spg_free_dataset(ds);
+        fail(ErrorKind::bad_file, problem, where,
+             kSpglibValid);
+      }
+      out.space_group_number = ds->spacegroup_number;
+      out.space_group_symbol = trimmed(ds->international_symbol);
+      out.point_group_symbol = trimmed(ds->pointgroup_symbol);
+      n_ops = ds->n_operations;
+      for (int k = 0; k < n_ops; ++k) {
+        IMat w{};
+        for (int i = 0; i < 3; ++i)
+          for (int j = 0; j < 3; ++j) w[i][j] = ds->rotations[k][i][j];
+        rotations.push_back(w);
+        primed.push_back(false);
+      }
+      spg_free_dataset(ds);
+    } else {
+      // Moments are axial rank-1 site tensors: a mirror keeps the component
+      // normal to it and reverses the others; time reversal reverses all.
+      SpglibMagneticDataset* ds = spg_get_magnetic_dataset(lattice, positions.get(), types.data(), moments.data(),
+                                                           /*tensor_rank=*/1, static_cast<int>(n),
+                                                           /*is_axial=*/1, symprec);
+      if (!ds || ds->n_operations <= 0) {
+        std::string problem = spglib_problem(cell);
+        if (ds) spg_free_magnetic_dataset(ds);
+        fail(ErrorKind::bad_file, problem, where,
+             kSpglibValid);
+      }
+      out.magnetic_uni_number = ds->uni_number;
+      const SpglibSpacegroupType sg = spg_get_spacegroup_type(ds->hall_number);
+      out.space_group_number = sg.number;
+      out.space_group_symbol = trimmed(sg.international_short);
+      out.point_group_symbol = trimmed(sg.pointgroup_international);
+      n_ops = ds->n_operations;
+      for (int k = 0; k < n_ops; ++k) {
+        IMat w{};
+        for (int i = 0; i < 3; ++i)
+          for (int j = 0; j < 3; ++j) w[i][j] = ds->rotations[k][i][j];
+        rotations.push_back(w);
+        primed.push_back(ds->time_reversals[k] != 0);
+      }
+      spg_free_magnetic_dataset(ds);
+    }
+  }
+
+  // R_cart = M^T W M^-T, with M the matrix whose rows are a, b, c.
+  const Mat& m = cell.lattice;
+  const Mat m_inv = inverse3(m);
+  std::set<std::pair<IMat, bool>> seen;
+  for (std::size_t k = 0; k < rotations.size(); ++k) {
+    if (!seen.insert({rotations[k], primed[k]}).second) continue;
+    PointOperation op;
+    op.rotation_lattice = rotations[k];
+    op.time_reversal = primed[k];
+    Mat wm{}; // W M^-T
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j)
+        for (int l = 0; l < 3; ++l) wm[i][j] += rotations[k][i][l] * m_inv[j][l];
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j) {
+        double v = 0;
+        for (int l = 0; l < 3; ++l) v += m[l][i] * wm[l][j];
+        op.rotation_cartesian[i][j] = snapped(v);
+      }
+    out.point_operations.push_back(op);
+  }
+  return out;
+}
+
+} // namespace ts

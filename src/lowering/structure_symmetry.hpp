@@ -1,0 +1,98 @@
+// Crystal structures in, point operations out.
+//
+// A structure (lattice + atoms, optionally with magnetic moments) is handed to
+// spglib (Debian libsymspg-dev), which finds its space group; we keep the
+// distinct point parts of the space-group operations (translations dropped),
+// each with a time-reversal flag for magnetic structures. Those point parts are
+// what decides which macroscopic tensors are allowed (Neumann's principle), so
+// this is the bridge from "here is my crystal" to the group engine.
+//
+// Conventions (docs/structures.md has the full description and a TOML example):
+// - `lattice` holds the lattice vectors as ROWS, in Cartesian Angstrom:
+//   lattice[0] = a, lattice[1] = b, lattice[2] = c. Call this matrix M. Then the
+//   Cartesian position of fractional coordinates f (a column) is r = M^T f.
+//   (spglib wants the transpose, the vectors as columns; we convert.)
+// - spglib's rotation W acts on fractional columns, f' = W f + w. With r = M^T f,
+//   the same operation on Cartesian columns is
+//       R_cart = M^T W M^-T,
+//   an orthogonal matrix for every true symmetry of the lattice.
+// - Moments are axial vectors in the same Cartesian frame (Bohr magnetons, but
+//   only directions and ratios matter). An operation (R, primed) maps a moment m
+//   to  det(R) R m  and, when primed, to minus that.
+#pragma once
+
+#include <toml++/toml.h>
+
+#include <array>
+#include <string>
+#include <vector>
+
+namespace ts {
+
+struct AtomSite {
+  std::string species;                // any label; equal labels mean the same kind of atom
+  std::array<double, 3> frac;         // fractional coordinates along a, b, c
+  std::array<double, 3> moment{0, 0, 0}; // Cartesian axial vector, used when the structure is magnetic
+};
+
+struct CrystalStructure {
+  std::array<std::array<double, 3>, 3> lattice; // rows = lattice vectors a, b, c in Cartesian Angstrom
+  std::vector<AtomSite> sites;
+  bool magnetic = false; // true when any site has a moment given (even a zero one)
+  // Distance tolerance in Angstrom for the symmetry search, read from the file's
+  // optional `symprec`; used by the one-argument find_structure_symmetry.
+  double symprec = 1e-5;
+  // Where the structure came from ("cell.toml:[structure]"), quoted in errors
+  // raised by the symmetry search. Empty for structures built in code.
+  std::string where;
+};
+
+struct PointOperation {
+  std::array<std::array<int, 3>, 3> rotation_lattice;       // W, in the lattice basis, as spglib gives it
+  std::array<std::array<double, 3>, 3> rotation_cartesian;  // R_cart = M^T W M^-T (see above)
+  bool time_reversal = false;                                // primed operation (magnetic structures only)
+};
+
+struct StructureSymmetry {
+  // Non-magnetic structure: the space group of the structure.
+  // Magnetic structure: the space group that spglib's magnetic dataset names
+  // by its Hall number, i.e. the family group (all operations with the primes
+  // dropped) for magnetic types I-III and the maximal unitary subgroup for
+  // type IV (a group with anti-translations).
+  int space_group_number = 0;
+  std::string space_group_symbol; // international short symbol, e.g. "Pnma", "P4_2/nmc"
+  std::string point_group_symbol; // spglib's point-group symbol of that space group, e.g. "mmm"
+  // Distinct (point part, time reversal) pairs of all space-group operations,
+  // in spglib's order (identity first). For a magnetic structure this is the
+  // magnetic point group, primed operations included; for a non-magnetic one it
+  // is the ordinary point group and no operation is primed (time reversal itself,
+  // 1', is a symmetry of every non-magnetic crystal and is left to the caller).
+  std::vector<PointOperation> point_operations;
+  int magnetic_uni_number = 0; // UNI serial number (1..1651) from spglib when magnetic, else 0
+  double symprec = 1e-5;       // the tolerance the search used
+};
+
+// Reads a [structure] block (schema in docs/structures.md):
+//   lattice = [[ax, ay, az], [bx, by, bz], [cx, cy, cz]]        (rows a, b, c; Angstrom)
+//   or a, b, c (Angstrom) and alpha, beta, gamma (degrees), with a along x and
+//   b in the xy plane
+//   sites = [ { species = "Ti", at = [0.5, 0.5, 0.5], moment = [0, 0, 1] }, ... ]
+//   symprec = 1e-5                                               (optional)
+// `where` names the block for messages, e.g. "cell.toml:[structure]". Every
+// malformed or unknown field throws ts::Error(ErrorKind::bad_file) naming the
+// field and its line:column.
+CrystalStructure parse_structure(const toml::table& block, const std::string& where);
+
+// Space group and point operations of a structure, by spglib. Uses the magnetic
+// search (moments as axial rank-1 site tensors) when `cell.magnetic`. Throws
+// ts::Error(ErrorKind::bad_file) quoting cell.where and spglib's own message
+// when spglib fails (atoms too close, no symmetry found within symprec, ...).
+StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double symprec);
+// Same, with the structure's own tolerance `cell.symprec` (1e-5 unless the file set it).
+StructureSymmetry find_structure_symmetry(const CrystalStructure& cell);
+
+// r = M^T f: Cartesian position (Angstrom) of fractional coordinates f.
+std::array<double, 3> fractional_to_cartesian(const CrystalStructure& cell,
+                                              const std::array<double, 3>& frac);
+
+} // namespace ts

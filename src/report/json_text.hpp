@@ -1,0 +1,13 @@
+// JSON is produced by a library (toml++'s JSON formatter) from a toml::table,
+// never by string concatenation. Tables keep keys sorted: canonical bytes.
+#pragma once
+
+#include <toml++/toml.h>
+
+#include <string>
+
+namespace ts {
+
+std::string json_text(const toml::table& t);
+
+} // namespace ts

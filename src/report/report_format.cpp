@@ -1,0 +1,100 @@
+#include "report/report_format.hpp"
+
+#include "core/error.hpp"
+
+#include <algorithm>
+#include <sstream>
+
+namespace ts {
+
+Format parse_format(const std::string& name) {
+  if (name == "text") return Format::text;
+  if (name == "markdown" || name == "md") return Format::markdown;
+  if (name == "latex" || name == "tex") return Format::latex;
+  if (name == "json") return Format::json;
+  fail(ErrorKind::usage, "unknown format '" + name + "'", "--format", "text, markdown, latex, json");
+}
+
+const char* format_name(Format f) {
+  switch (f) {
+  case Format::text: return "text";
+  case Format::markdown: return "markdown";
+  case Format::latex: return "latex";
+  case Format::json: return "json";
+  }
+  return "";
+}
+
+namespace {
+// Display width of UTF-8 text (count code points).
+std::size_t width(const std::string& s) {
+  std::size_t w = 0;
+  for (unsigned char c : s)
+    if ((c & 0xC0) != 0x80) ++w;
+  return w;
+}
+} // namespace
+
+std::string latex_escape(const std::string& s) {
+  std::string out;
+  for (char c : s) {
+    switch (c) {
+    case '&': out += "\\&"; break;
+    case '%': out += "\\%"; break;
+    case '#': out += "\\#"; break;
+    case '_': out += "\\_"; break;
+    case '$': out += "\\$"; break;
+    case '{': out += "\\{"; break;
+    case '}': out += "\\}"; break;
+    case '~': out += "\\textasciitilde{}"; break;
+    case '^': out += "\\textasciicircum{}"; break;
+    case '\\': out += "\\textbackslash{}"; break;
+    default: out += c;
+    }
+  }
+  return out;
+}
+
+std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows, Format f) {
+  std::ostringstream os;
+  if (f == Format::latex) {
+    os << "\\begin{tabular}{" << std::string(header.size(), 'l') << "}\n\\hline\n";
+    for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << header[i];
+    os << " \\\\\n\\hline\n";
+    for (const auto& r : rows) {
+      for (std::size_t i = 0; i < r.size(); ++i) os << (i ? " & " : "") << r[i];
+      os << " \\\\\n";
+    }
+    os << "\\hline\n\\end{tabular}\n";
+    return os.str();
+  }
+  std::vector<std::size_t> w(header.size(), 0);
+  for (std::size_t i = 0; i < header.size(); ++i) w[i] = width(header[i]);
+  for (const auto& r : rows)
+    for (std::size_t i = 0; i < r.size() && i < w.size(); ++i) w[i] = std::max(w[i], width(r[i]));
+  auto line = [&](const std::vector<std::string>& r) {
+    std::string s = f == Format::markdown ? "| " : "  ";
+    for (std::size_t i = 0; i < w.size(); ++i) {
+      std::string cell = i < r.size() ? r[i] : "";
+      s += cell + std::string(w[i] - width(cell), ' ');
+      if (i + 1 < w.size()) s += f == Format::markdown ? " | " : "  ";
+    }
+    if (f == Format::markdown) s += " |";
+    else while (!s.empty() && s.back() == ' ') s.pop_back();
+    return s + "\n";
+  };
+  os << line(header);
+  if (f == Format::markdown) {
+    std::string s = "|";
+    for (std::size_t i = 0; i < w.size(); ++i) s += std::string(w[i] + 2, '-') + "|";
+    os << s << "\n";
+  } else {
+    std::string s = "  ";
+    for (std::size_t i = 0; i < w.size(); ++i) s += std::string(w[i], '-') + (i + 1 < w.size() ? "  " : "");
+    os << s << "\n";
+  }
+  for (const auto& r : rows) os << line(r);
+  return os.str();
+}
+
+} // namespace ts

@@ -1,0 +1,21 @@
+// Output formats shared by every report writer, and the JSON/text helpers
+// they use. Writers never compute physics: they format result values.
+#pragma once
+
+#include <string>
+#include <vector>
+
+namespace ts {
+
+enum class Format { text, markdown, latex, json };
+Format parse_format(const std::string& name); // throws Error(usage)
+const char* format_name(Format f);
+
+// A simple aligned table for text and Markdown, or a LaTeX tabular.
+std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
+                 Format f);
+
+// Escape &, %, _, #, $ ... for LaTeX text mode.
+std::string latex_escape(const std::string& s);
+
+} // namespace ts
