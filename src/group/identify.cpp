@@ -61,6 +61,19 @@ bool maps_into(const std::array<Vec3, 3>& r, const std::array<Rational, 3>& n2, 
 
 } // namespace
 
+bool frame_carries(const std::array<Vec3, 3>& r, const PointGroup& g, const PointGroup& target) {
+  if (g.order() != target.order()) return false;
+  std::array<Rational, 3> n2{};
+  for (int i = 0; i < 3; ++i) {
+    QSqrt3 len = dot(r[i], r[i]);
+    if (!len.is_rational()) return false;
+    n2[i] = len.rational_part();
+  }
+  for (const auto& op : g.generators())
+    if (!maps_into(r, n2, op, target)) return false;
+  return true;
+}
+
 Identification identify(const PointGroup& group, const GroupCatalogue& catalogue) {
   Identification id;
   const CrystalClass* family = catalogue.crystallographic_type_of(group);

@@ -17,6 +17,10 @@ struct Identification {
   std::array<Vec3, 3> standard_axes{};
 };
 
+// True when the frame with exact orthogonal rows r (unnormalised) carries g
+// onto target: Q g Qᵀ = target with Q the normalised rows.
+bool frame_carries(const std::array<Vec3, 3>& rows, const PointGroup& g, const PointGroup& target);
+
 // Throws Error(bad_group) when the operations are not a crystallographic
 // (magnetic) point group.
 Identification identify(const PointGroup& group, const GroupCatalogue& catalogue);

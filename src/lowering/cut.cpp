@@ -1,0 +1,149 @@
+#include "lowering/cut.hpp"
+
+#include "core/error.hpp"
+
+#include <cctype>
+#include <cmath>
+#include <cstdio>
+#include <vector>
+
+namespace ts {
+
+Rational exact_decimal(double value) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.12g", value);
+  std::string s = buf;
+  if (s.find_first_of("eEn") != std::string::npos)
+    fail(ErrorKind::bad_file, "lattice parameter " + s + " is not a plain decimal number", "", "e.g. 3.905");
+  std::int64_t num = 0, den = 1;
+  bool neg = false, frac = false;
+  for (char ch : s) {
+    if (ch == '-') neg = true;
+    else if (ch == '.') frac = true;
+    else {
+      num = num * 10 + (ch - '0');
+      if (frac) den *= 10;
+    }
+  }
+  return Rational(neg ? -num : num, den);
+}
+
+namespace {
+
+const char* cut_help = "a plane (hkl) such as (110), (11-20) for hexagonal axes, or a direction [uvw] such as [111]";
+
+// Parse the integers of "(1-10)", "(1,-1,0)", "(11-20)".
+std::vector<long> indices(const std::string& body, const std::string& raw, const std::string& where) {
+  bool commas = body.find(',') != std::string::npos;
+  std::vector<long> idx;
+  for (std::size_t i = 0; i < body.size();) {
+    if (body[i] == ',' || body[i] == ' ') {
+      ++i;
+      continue;
+    }
+    long sign = 1;
+    if (body[i] == '-') {
+      sign = -1;
+      ++i;
+    }
+    if (i >= body.size() || !std::isdigit(static_cast<unsigned char>(body[i])))
+      fail(ErrorKind::bad_geometry, "'" + raw + "': expected a digit", where, cut_help);
+    long v = 0;
+    do {
+      v = v * 10 + (body[i] - '0');
+      ++i;
+    } while (commas && i < body.size() && std::isdigit(static_cast<unsigned char>(body[i])));
+    idx.push_back(sign * v);
+  }
+  return idx;
+}
+
+bool needs_metric(const std::array<long, 3>& v, const std::string& system) {
+  int nonzero_ab = (v[0] != 0) + (v[1] != 0);
+  if (system == "cubic") return false;
+  if (system == "tetragonal" || system == "hexagonal" || system == "trigonal") return v[2] != 0 && nonzero_ab > 0;
+  if (system == "orthorhombic") return nonzero_ab + (v[2] != 0) > 1;
+  return true;
+}
+
+void require_metric(const std::array<long, 3>& v, const std::string& system, const LatticeMetric& m,
+                    const std::string& text, const std::string& where) {
+  if (system == "monoclinic" || system == "triclinic") {
+    bool along_axis = (v[0] != 0) + (v[1] != 0) + (v[2] != 0) == 1;
+    if (!along_axis)
+      fail(ErrorKind::bad_geometry,
+           text + ": oblique cuts of monoclinic and triclinic crystals need the full metric, which exact arithmetic "
+                  "does not cover",
+           where, "a cut along a crystal axis, or describe the sample in the frame of an orthogonal parent");
+    return;
+  }
+  if (!needs_metric(v, system)) return;
+  bool ok = m.a.has_value() && m.c.has_value();
+  if (system == "orthorhombic") ok = ok && m.b.has_value();
+  if (!ok)
+    fail(ErrorKind::bad_geometry,
+         text + " in a " + system + " crystal depends on the axis ratios; give the lattice parameters", where,
+         system == "orthorhombic" ? "lattice = { a = ..., b = ..., c = ... }" : "lattice = { a = ..., c = ... }");
+}
+
+} // namespace
+
+Vec3 metric_direction(const LatticeDirection& d, const std::string& system, LatticeKind lattice,
+                      const LatticeMetric& m, const std::string& where) {
+  require_metric(d.uvw, system, m, d.text, where);
+  if (!needs_metric(d.uvw, system) || system == "monoclinic" || system == "triclinic")
+    return lattice_to_cartesian({QSqrt3(d.uvw[0]), QSqrt3(d.uvw[1]), QSqrt3(d.uvw[2])}, lattice);
+  Rational a = *m.a, b = m.b.value_or(a), c = *m.c;
+  if (lattice == LatticeKind::hexagonal) {
+    Vec3 inplane = lattice_to_cartesian({QSqrt3(d.uvw[0]), QSqrt3(d.uvw[1]), QSqrt3(0)}, lattice);
+    return {inplane[0] * QSqrt3(a), inplane[1] * QSqrt3(a), QSqrt3(c * Rational(d.uvw[2]))};
+  }
+  return {QSqrt3(a * Rational(d.uvw[0])), QSqrt3(b * Rational(d.uvw[1])), QSqrt3(c * Rational(d.uvw[2]))};
+}
+
+CutNormal parse_cut(const std::string& raw, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
+                    const std::string& where) {
+  std::string text;
+  for (char ch : raw)
+    if (ch != ' ') text += ch;
+  if (text.size() >= 2 && text.front() == '[') {
+    LatticeDirection d = parse_direction(text, where);
+    return {metric_direction(d, system, lattice, m, where), d.text, false};
+  }
+  if (text.size() < 2 || text.front() != '(' || text.back() != ')')
+    fail(ErrorKind::bad_geometry, "'" + raw + "' is not a cut", where, cut_help);
+  std::vector<long> idx = indices(text.substr(1, text.size() - 2), raw, where);
+  std::array<long, 3> hkl{};
+  if (idx.size() == 4) {
+    if (lattice != LatticeKind::hexagonal)
+      fail(ErrorKind::bad_geometry, "'" + raw + "': four-index (hkil) planes belong to hexagonal axes", where, cut_help);
+    if (idx[2] != -(idx[0] + idx[1]))
+      fail(ErrorKind::bad_geometry, "'" + raw + "': in (hkil) the third index must be i = -(h+k)", where, cut_help);
+    hkl = {idx[0], idx[1], idx[3]};
+  } else if (idx.size() == 3) {
+    hkl = {idx[0], idx[1], idx[2]};
+  } else {
+    fail(ErrorKind::bad_geometry, "'" + raw + "' has " + std::to_string(idx.size()) + " indices", where, cut_help);
+  }
+  if (hkl[0] == 0 && hkl[1] == 0 && hkl[2] == 0)
+    fail(ErrorKind::bad_geometry, "'" + raw + "' is not a plane", where, cut_help);
+  std::string label = "(";
+  for (long v : idx) label += std::to_string(v);
+  label += ")";
+  require_metric(hkl, system, m, label, where);
+  bool metric = needs_metric(hkl, system) && system != "monoclinic" && system != "triclinic";
+  Rational a = m.a.value_or(Rational(1)), b = m.b.value_or(a), c = m.c.value_or(a);
+  if (!metric) a = b = c = Rational(1);
+  Vec3 n;
+  if (lattice == LatticeKind::hexagonal) {
+    // Reciprocal vectors of a1 = a(1,0,0), a2 = a(-1/2, √3/2, 0), a3 = c(0,0,1), times √3·a:
+    // n = (√3 h, h + 2k, √3 (a/c) l).
+    n = {QSqrt3(0, Rational(hkl[0])), QSqrt3(Rational(hkl[0] + 2 * hkl[1])), QSqrt3(0, a / c * Rational(hkl[2]))};
+  } else {
+    // n = (h/a, k/b, l/c), times a·b·c to keep it short.
+    n = {QSqrt3(Rational(hkl[0]) * b * c), QSqrt3(Rational(hkl[1]) * a * c), QSqrt3(Rational(hkl[2]) * a * b)};
+  }
+  return {n, label, true};
+}
+
+} // namespace ts

@@ -1,0 +1,42 @@
+// Cuts: the normal of a surface or interface given as a plane (hkl) (or the
+// Miller-Bravais (hkil) of hexagonal crystals) or as a direction [uvw], turned
+// into an exact Cartesian vector. A plane normal comes from the reciprocal
+// metric, so (hkl) is not parallel to [hkl] when the axes differ in length;
+// where that matters and the lattice parameters are missing, the cut is refused.
+#pragma once
+
+#include "core/rational.hpp"
+#include "geometry/crystal_direction.hpp"
+
+#include <optional>
+#include <string>
+
+namespace ts {
+
+// Lattice parameters as exact rationals (decimal input such as 3.905 is read
+// exactly as 3905/1000). Only the ratios matter. Angles are the conventional
+// ones of the crystal system (90°, or 120° between a and b for hexagonal axes).
+struct LatticeMetric {
+  std::optional<Rational> a, b, c;
+  bool known() const { return a.has_value(); }
+};
+
+struct CutNormal {
+  Vec3 normal;        // exact Cartesian vector (unnormalised)
+  std::string text;   // "(110)", "[111]", "(11-20)"
+  bool plane = true;  // given as a plane (hkl) rather than a direction [uvw]
+};
+
+// `system` is the crystal system of the parent group ("cubic", "hexagonal", ...).
+CutNormal parse_cut(const std::string& text, const std::string& system, LatticeKind lattice,
+                    const LatticeMetric& metric, const std::string& where);
+
+// Cartesian vector of a lattice direction [uvw] with the metric applied.
+Vec3 metric_direction(const LatticeDirection& d, const std::string& system, LatticeKind lattice,
+                      const LatticeMetric& metric, const std::string& where);
+
+// Exact rational from a decimal number (at most 12 significant digits are kept,
+// enough for any measured lattice parameter).
+Rational exact_decimal(double value);
+
+} // namespace ts

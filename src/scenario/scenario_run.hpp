@@ -1,0 +1,65 @@
+// Running a scenario: the chain of groups from the bulk crystal through the
+// cut and every lowering step, the sample frame, the allowed forms of each
+// response part at each step, what each step switches on, and the domain
+// variants of the lowering.
+#pragma once
+
+#include "group/identify.hpp"
+#include "lowering/domains.hpp"
+#include "scenario/scenario.hpp"
+#include "tensor/allowed_form.hpp"
+
+#include <string>
+#include <vector>
+
+namespace ts {
+
+struct ChainStep {
+  std::string label;        // "bulk", "cut (110), interface", "moment ∥ [001]"
+  std::string quantity;     // how the imposed quantity transforms, empty for the bulk
+  PointGroup group;         // in the crystal frame
+  Identification id;
+  std::string sample_symbol; // HM symbol of a tabulated setting matching the sample frame, else empty
+  std::vector<std::string> lost; // operations the step removed (crystal-frame symbols)
+};
+
+struct PartForms {
+  std::string response_id, response_name, part_label;
+  TensorSpec spec;
+  std::vector<AllowedForm> forms; // one per chain step, in the sample frame
+};
+
+// A relation C = factor·anchor of the previous step that a lowering broke.
+struct BrokenRelation {
+  std::string component, anchor;
+  Surd factor;
+};
+
+struct StepChange {
+  std::size_t step = 0;            // chain index (>= 1)
+  std::size_t part = 0;            // index into parts
+  int before = 0, after = 0;       // independent components
+  std::vector<std::string> switched_on;    // components zero before, nonzero after
+  std::vector<BrokenRelation> broken;      // relations of the previous step that no longer hold
+};
+
+struct DomainReport {
+  std::size_t part = 0;
+  std::size_t from_step = 0; // parent step of the lowering whose variants these are
+  DomainAnalysis analysis;
+};
+
+struct ScenarioResult {
+  Scenario scenario;
+  std::string parent_note;   // e.g. "m-3m taken as non-magnetic: m-3m1'"
+  Frame frame;
+  std::array<std::string, 3> frame_labels;
+  std::vector<ChainStep> chain;
+  std::vector<PartForms> parts;
+  std::vector<StepChange> changes;
+  std::vector<DomainReport> domains;
+};
+
+ScenarioResult run_scenario(const Scenario& scenario);
+
+} // namespace ts
