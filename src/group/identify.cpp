@@ -101,6 +101,12 @@ Identification identify(const PointGroup& group, const GroupCatalogue& catalogue
     }
   const PointGroup& standard = id.type->group;
   std::vector<Operation> gens = group.generators();
+  const std::array<Vec3, 3> unit{Vec3{QSqrt3(1), QSqrt3(0), QSqrt3(0)}, Vec3{QSqrt3(0), QSqrt3(1), QSqrt3(0)},
+                                 Vec3{QSqrt3(0), QSqrt3(0), QSqrt3(1)}};
+  if (frame_carries(unit, group, standard)) {
+    id.standard_axes = unit; // already in the standard setting
+    return id;
+  }
   std::vector<Vec3> lines = candidate_lines(group);
   for (const auto& zl : lines)
     for (int zs : {1, -1}) {
