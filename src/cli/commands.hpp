@@ -20,5 +20,8 @@ void setup_group(CLI::App& app);
 void setup_identify(CLI::App& app);
 void setup_form(CLI::App& app);
 void setup_survey(CLI::App& app);
+void setup_run(CLI::App& app);
+void setup_sample(CLI::App& app);
+void setup_responses(CLI::App& app);
 
 } // namespace ts::cli

@@ -27,6 +27,9 @@ int main(int argc, char** argv) {
   ts::cli::setup_identify(app);
   ts::cli::setup_form(app);
   ts::cli::setup_survey(app);
+  ts::cli::setup_run(app);
+  ts::cli::setup_sample(app);
+  ts::cli::setup_responses(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

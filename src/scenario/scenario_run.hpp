@@ -43,9 +43,13 @@ struct StepChange {
   std::vector<BrokenRelation> broken;      // relations of the previous step that no longer hold
 };
 
+// Orientation domains of the spontaneous steps (distortions, polar and magnetic
+// order, tilts) after the cut; applied fields and currents form no domains.
 struct DomainReport {
   std::size_t part = 0;
-  std::size_t from_step = 0; // parent step of the lowering whose variants these are
+  std::size_t from_step = 0;  // chain step whose group the domains break (the cut, or the bulk)
+  PointGroup domain_group;    // the group of variant 1: the spontaneous steps only
+  AllowedForm form;           // the part's form in domain_group, sample frame
   DomainAnalysis analysis;
 };
 

@@ -1,0 +1,65 @@
+// tensorsieve responses | response ID GROUP
+#include "cli/commands.hpp"
+#include "core/error.hpp"
+#include "geometry/sample_frame.hpp"
+#include "group/group_catalogue.hpp"
+#include "response/response_report.hpp"
+
+#include <memory>
+
+namespace ts::cli {
+
+namespace {
+
+void setup_response_list(CLI::App& app) {
+  auto o = std::make_shared<OutputOptions>();
+  auto* cmd = app.add_subcommand("responses", "list the catalogue of physical responses (ids for `response`)");
+  add_output_options(*cmd, *o);
+  cmd->callback([o] {
+    const auto& cat = ResponseCatalogue::builtin();
+    emit(*o, write_response_list(cat.responses(), parse_format(o->format)));
+  });
+}
+
+void setup_response_form(CLI::App& app) {
+  struct Opts {
+    OutputOptions out;
+    std::string id, group, view = "auto", z, x;
+  };
+  auto o = std::make_shared<Opts>();
+  auto* cmd = app.add_subcommand("response", "describe a physical response and its allowed form in a point group");
+  cmd->add_option("id", o->id, "response id or alias, e.g. anomalous-hall, shg, bcd (`tensorsieve responses`)")
+      ->required();
+  cmd->add_option("group", o->group, "point group symbol, e.g. 4mm1', 4m'm', -3'm'")->required();
+  cmd->add_option("--z", o->z, "report components in a frame with z along this crystal direction, e.g. [111]");
+  cmd->add_option("--x", o->x, "x axis of that frame (perpendicular to z), e.g. [1-10]");
+  cmd->add_option("--view", o->view, "auto, components, matrix, dmatrix or voigt")->capture_default_str();
+  add_output_options(*cmd, o->out);
+  cmd->callback([o] {
+    const Response& r = ResponseCatalogue::builtin().get(o->id);
+    const NamedGroup& g = GroupCatalogue::builtin().get(o->group);
+    View view = parse_view(o->view);
+    Format format = parse_format(o->out.format);
+    FrameContext fc;
+    Frame frame;
+    if (!o->z.empty() || !o->x.empty()) {
+      if (o->z.empty() || o->x.empty())
+        fail(ErrorKind::usage, "a frame needs both --z and --x", "--z/--x", "--z [110] --x [001]");
+      frame = frame_from_directions(o->z, o->x, g.group.lattice(), "--z/--x");
+      fc.axes = frame.labels;
+      fc.crystal_frame = false;
+    } else if (g.group.lattice() == LatticeKind::hexagonal) {
+      fc.axes = {"[100]", "[120]", "[001]"};
+    }
+    emit(o->out, write_response(r, response_forms(r, g.group, frame), GroupContext::of(g), fc, format, view));
+  });
+}
+
+} // namespace
+
+void setup_responses(CLI::App& app) {
+  setup_response_list(app);
+  setup_response_form(app);
+}
+
+} // namespace ts::cli

@@ -1,0 +1,226 @@
+#include "report/scenario_report.hpp"
+
+#include "report/expression_text.hpp"
+#include "report/form_report.hpp"
+#include "report/json_text.hpp"
+
+#include <sstream>
+
+namespace ts {
+
+namespace {
+
+std::string code(const std::string& s, Format f) {
+  if (f == Format::markdown) return "`" + s + "`";
+  if (f == Format::latex) return "\\texttt{" + latex_escape(s) + "}";
+  return s;
+}
+
+std::string heading(const std::string& s, Format f, int level = 2) {
+  if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
+  if (f == Format::latex) return std::string(level <= 1 ? "\\section*{" : "\\subsection*{") + latex_escape(s) + "}\n";
+  return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
+}
+
+std::string join(const std::vector<std::string>& v, const std::string& sep) {
+  std::string s;
+  for (std::size_t i = 0; i < v.size(); ++i) s += (i ? sep : "") + v[i];
+  return s;
+}
+
+std::string group_name(const ChainStep& st) {
+  return st.sample_symbol.empty() ? st.id.type->symbol : st.sample_symbol;
+}
+
+std::string standard_axes(const ChainStep& st, LatticeKind lattice) {
+  std::string out;
+  const char* n[3] = {"x", "y", "z"};
+  for (int i = 0; i < 3; ++i) {
+    std::array<long, 3> uvw{};
+    std::string d = cartesian_to_lattice_direction(st.id.standard_axes[i], lattice, &uvw)
+                        ? direction_str(uvw) : vec_str(st.id.standard_axes[i]);
+    out += std::string(i ? ", " : "") + n[i] + "_std ∥ " + d;
+  }
+  return out;
+}
+
+GroupContext context_of(const ChainStep& st, LatticeKind lattice) {
+  GroupContext c;
+  c.symbol = group_name(st);
+  c.type_symbol = st.id.type->symbol;
+  c.schoenflies = st.id.type->schoenflies;
+  c.kind = magnetic_kind_name(st.id.type->kind);
+  c.order = st.group.order();
+  c.setting = st.sample_symbol.empty() ? "standard setting at " + standard_axes(st, lattice) + " (crystal axes)"
+                                       : st.sample_symbol + " in the sample frame";
+  for (const auto& op : st.group.operations()) c.operations.push_back(op.symbol(lattice));
+  return c;
+}
+
+std::string relation_text(const BrokenRelation& b, Format f) {
+  TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
+  std::string factor;
+  if (b.factor == Surd(Rational(1))) factor = "";
+  else if (b.factor == Surd(Rational(-1))) factor = "-";
+  else factor = (b.factor.terms().size() == 1 ? surd_text(b.factor, style) : "(" + surd_text(b.factor, style) + ")") +
+                (style == TextStyle::latex ? " " : "*");
+  return symbol_text(b.component, style) + " = " + factor + symbol_text(b.anchor, style);
+}
+
+std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f) {
+  TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
+  std::vector<std::string> parts;
+  for (int r = 0; r < form.symmetry->size(); ++r) {
+    int c = form.symmetry->rep_code(r);
+    if (t.is_zero(c)) continue;
+    parts.push_back(symbol_text(form.component_name(c), style) + " = " + combination_text(form, t.components[c], style));
+  }
+  return parts.empty() ? "all components vanish" : join(parts, "; ");
+}
+
+} // namespace
+
+std::string write_scenario(const ScenarioResult& r, Format f) {
+  const auto& sc = r.scenario;
+  const LatticeKind lattice = r.chain.front().group.lattice();
+  const std::string frame_text = "x ∥ " + r.frame_labels[0] + ", y ∥ " + r.frame_labels[1] + ", z ∥ " + r.frame_labels[2];
+  if (f == Format::json) {
+    toml::table root;
+    root.insert("title", sc.title);
+    root.insert("source", sc.source);
+    root.insert("parent_note", r.parent_note);
+    root.insert("frame", toml::table{{"x", r.frame_labels[0]}, {"y", r.frame_labels[1]}, {"z", r.frame_labels[2]}});
+    toml::array chain;
+    for (std::size_t i = 0; i < r.chain.size(); ++i) {
+      const auto& st = r.chain[i];
+      toml::array ops, lost;
+      for (const auto& op : st.group.operations()) ops.push_back(op.symbol(lattice));
+      for (const auto& l : st.lost) lost.push_back(l);
+      chain.push_back(toml::table{{"step", static_cast<std::int64_t>(i)},
+                                  {"label", st.label},
+                                  {"quantity", st.quantity},
+                                  {"type", st.id.type->symbol},
+                                  {"schoenflies", st.id.type->schoenflies},
+                                  {"sample_frame_symbol", st.sample_symbol},
+                                  {"standard_setting", standard_axes(st, lattice)},
+                                  {"order", static_cast<std::int64_t>(st.group.order())},
+                                  {"operations", ops},
+                                  {"lost", lost}});
+    }
+    root.insert("chain", chain);
+    toml::array parts;
+    for (std::size_t k = 0; k < r.parts.size(); ++k) {
+      const auto& p = r.parts[k];
+      toml::array counts;
+      for (const auto& fm : p.forms) counts.push_back(static_cast<std::int64_t>(fm.independent()));
+      toml::table final_form;
+      FrameContext fc{r.frame_labels, false};
+      form_json(p.forms.back(), context_of(r.chain.back(), lattice), fc, final_form);
+      toml::array changes;
+      for (const auto& ch : r.changes) {
+        if (ch.part != k) continue;
+        toml::array on, broken;
+        for (const auto& s : ch.switched_on) on.push_back(s);
+        for (const auto& b : ch.broken) broken.push_back(relation_text(b, Format::text));
+        changes.push_back(toml::table{{"step", static_cast<std::int64_t>(ch.step)},
+                                      {"independent_before", ch.before},
+                                      {"independent_after", ch.after},
+                                      {"switched_on", on},
+                                      {"relations_broken", broken}});
+      }
+      toml::table entry{{"response", p.response_id},
+                        {"response_name", p.response_name},
+                        {"part", p.part_label},
+                        {"spec", p.spec.canonical_text()},
+                        {"independent_by_step", counts},
+                        {"final", final_form},
+                        {"changes", changes}};
+      for (const auto& d : r.domains) {
+        if (d.part != k) continue;
+        toml::array vars;
+        for (const auto& v : d.analysis.variants)
+          vars.push_back(toml::table{{"representative", v.representative.symbol(lattice)},
+                                     {"components", tensor_components_text(v.tensor, d.form, Format::text)}});
+        entry.insert("domains", toml::table{{"from_step", static_cast<std::int64_t>(d.from_step)},
+                                            {"variants", vars},
+                                            {"domain_group", identify(d.domain_group, GroupCatalogue::builtin()).type->symbol},
+                                            {"average", tensor_components_text(d.analysis.average, d.form, Format::text)}});
+      }
+      parts.push_back(entry);
+    }
+    root.insert("parts", parts);
+    return json_text(root);
+  }
+
+  std::ostringstream os;
+  os << heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
+  if (f == Format::text) os << "source: " << sc.source << "\n";
+  if (!r.parent_note.empty()) os << (f == Format::latex ? "\\noindent " : "") << "parent: " << r.parent_note << "\n";
+  os << (f == Format::latex ? "\n\\noindent " : "") << "sample frame: " << frame_text << " (right-handed, y = z × x)\n\n";
+
+  os << heading("symmetry chain", f);
+  std::vector<std::vector<std::string>> rows;
+  for (std::size_t i = 0; i < r.chain.size(); ++i) {
+    const auto& st = r.chain[i];
+    std::string setting = st.sample_symbol.empty() ? standard_axes(st, lattice) : "as written, in the sample frame";
+    rows.push_back({std::to_string(i), st.label, code(group_name(st), f), st.id.type->schoenflies,
+                    std::to_string(st.group.order()), setting});
+  }
+  os << grid({"step", "imposed", "group", "Schoenflies", "order", "setting"}, rows, f);
+  for (std::size_t i = 1; i < r.chain.size(); ++i) {
+    const auto& lost = r.chain[i].lost;
+    if (lost.empty()) continue;
+    std::vector<std::string> shown;
+    for (const auto& l : lost) shown.push_back(code(l, f));
+    os << (f == Format::markdown ? "- " : "  ") << "step " << i << " removes " << lost.size() << " of "
+       << r.chain[i - 1].group.order() << " operations"
+       << (lost.size() <= 16 ? ": " + join(shown, ", ") : " (all listed in --format json)")
+       << (f == Format::latex ? "\\\\" : "") << "\n";
+  }
+  os << "\n";
+
+  for (std::size_t k = 0; k < r.parts.size(); ++k) {
+    const auto& p = r.parts[k];
+    os << heading(p.response_id.empty() ? "tensor " + p.spec.canonical_text()
+                                        : p.response_name + " [" + p.response_id + "]: " + p.part_label,
+                  f);
+    std::vector<std::vector<std::string>> counts;
+    for (std::size_t i = 0; i < r.chain.size(); ++i) {
+      int n = p.forms[i].independent();
+      counts.push_back({std::to_string(i), code(group_name(r.chain[i]), f), std::to_string(n), n > 0 ? "allowed" : "forbidden"});
+    }
+    os << grid({"step", "group", "independent", "verdict"}, counts, f) << "\n";
+    for (const auto& ch : r.changes) {
+      if (ch.part != k || (ch.switched_on.empty() && ch.broken.empty())) continue;
+      std::string on;
+      for (const auto& s : ch.switched_on) on += (on.empty() ? "" : ", ") + code(s, f);
+      std::vector<std::string> br;
+      for (const auto& b : ch.broken) br.push_back(code(relation_text(b, f == Format::latex ? Format::text : f), f));
+      os << (f == Format::markdown ? "- " : "  ") << "step " << ch.step << " (" << r.chain[ch.step].label << "): "
+         << ch.before << " → " << ch.after << " independent";
+      if (!on.empty()) os << "; switched on: " << on;
+      if (!br.empty()) os << "; relations broken: " << join(br, ", ");
+      os << (f == Format::latex ? "\\\\" : "") << "\n";
+    }
+    os << "\n";
+    FrameContext fc{r.frame_labels, false};
+    os << write_form(p.forms.back(), context_of(r.chain.back(), lattice), fc, f, View::automatic) << "\n";
+    for (const auto& d : r.domains) {
+      if (d.part != k) continue;
+      std::string dg = identify(d.domain_group, GroupCatalogue::builtin()).type->symbol;
+      os << heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
+                        group_name(r.chain[d.from_step]) + " (spontaneous steps only; applied fields form no domains)",
+                    f, 3);
+      std::vector<std::vector<std::string>> vrows;
+      for (std::size_t v = 0; v < d.analysis.variants.size(); ++v)
+        vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
+                         tensor_components_text(d.analysis.variants[v].tensor, d.form, f)});
+      os << grid({"variant", "g_i", "components (sample frame)"}, vrows, f);
+      os << "\n" << (f == Format::markdown ? "**" : "") << "average over equal populations:" << (f == Format::markdown ? "** " : " ")
+         << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
+    }
+  }
+  return os.str();
+}
+
+} // namespace ts

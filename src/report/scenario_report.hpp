@@ -1,0 +1,15 @@
+// The report of a scenario run: symmetry chain with groups and settings, the
+// allowed form of every response part in the sample frame, what each step
+// switched on, and the domain variants with their average.
+#pragma once
+
+#include "report/report_format.hpp"
+#include "scenario/scenario_run.hpp"
+
+#include <string>
+
+namespace ts {
+
+std::string write_scenario(const ScenarioResult& result, Format format);
+
+} // namespace ts

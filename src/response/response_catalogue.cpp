@@ -1,0 +1,372 @@
+#include "response/response_catalogue.hpp"
+
+#include "core/data_dir.hpp"
+#include "core/error.hpp"
+
+#include <toml++/toml.h>
+
+#include <algorithm>
+#include <cctype>
+#include <filesystem>
+#include <map>
+#include <mutex>
+#include <set>
+
+namespace ts {
+
+const std::vector<std::string>& response_harmonics() {
+  static const std::vector<std::string> v{"1ω", "2ω", "3ω", "DC", "2ω+DC", "static"};
+  return v;
+}
+
+const std::vector<std::string>& response_drives() {
+  static const std::vector<std::string> v{"E", "B", "M", "j", "H", "gradT", "light", "stress", "strain", "temperature"};
+  return v;
+}
+
+const std::vector<std::string>& response_statuses() {
+  static const std::vector<std::string> v{"checked", "title checked", "from memory", "common practice"};
+  return v;
+}
+
+std::string normalise_response_key(const std::string& s) {
+  std::string out;
+  for (unsigned char c : s) {
+    if (c == ' ' || c == '_' || c == '\t' || c == '-') {
+      if (!out.empty() && out.back() != '-') out += '-';
+      continue;
+    }
+    out += static_cast<char>(std::tolower(c));
+  }
+  while (!out.empty() && out.back() == '-') out.pop_back();
+  return out;
+}
+
+namespace {
+
+std::string join(const std::vector<std::string>& v, const std::string& sep) {
+  std::string s;
+  for (std::size_t i = 0; i < v.size(); ++i) s += (i ? sep : "") + v[i];
+  return s;
+}
+
+std::string position(const std::string& file, const toml::source_region& src) {
+  return file + ":" + std::to_string(src.begin.line) + ":" + std::to_string(src.begin.column);
+}
+
+// Ids are what users type and scenario files store: keep them plain.
+bool valid_key(const std::string& s) {
+  if (s.empty() || !std::islower(static_cast<unsigned char>(s.front())) || s.back() == '-') return false;
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    unsigned char c = static_cast<unsigned char>(s[i]);
+    if (!(std::islower(c) || std::isdigit(c) || c == '-')) return false;
+    if (c == '-' && s[i + 1] == '-') return false;
+  }
+  return true;
+}
+
+std::size_t edit_distance(const std::string& a, const std::string& b) {
+  std::vector<std::size_t> row(b.size() + 1);
+  for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
+  for (std::size_t i = 1; i <= a.size(); ++i) {
+    std::size_t diag = row[0];
+    row[0] = i;
+    for (std::size_t j = 1; j <= b.size(); ++j) {
+      std::size_t up = row[j];
+      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diag + (a[i - 1] == b[j - 1] ? 0 : 1)});
+      diag = up;
+    }
+  }
+  return row[b.size()];
+}
+
+// Reading one table with exact messages: where the table starts, which entry,
+// which key, and what would be valid.
+class TableReader {
+public:
+  TableReader(const toml::table& t, std::string file, std::string context)
+      : t_(t), file_(std::move(file)), context_(std::move(context)) {}
+
+  std::string at() const { return position(file_, t_.source()); }
+  std::string at(const char* key) const {
+    const toml::node* n = t_.get(key);
+    return n ? position(file_, n->source()) : at();
+  }
+  [[noreturn]] void error(const char* key, const std::string& what, const std::string& valid = {}) const {
+    fail(ErrorKind::bad_file, context_ + ", key '" + key + "': " + what, at(key), valid);
+  }
+
+  void only_keys(const std::vector<std::string>& allowed) const {
+    for (const auto& [k, v] : t_) {
+      std::string key(k.str());
+      if (std::find(allowed.begin(), allowed.end(), key) == allowed.end())
+        fail(ErrorKind::bad_file, context_ + ": unknown key '" + key + "'", position(file_, v.source()),
+             "keys of this table: " + join(allowed, ", ") + " (docs/responses.md)");
+    }
+  }
+
+  std::string text(const char* key, bool needed = true) const {
+    const toml::node* n = t_.get(key);
+    if (!n) {
+      if (needed) fail(ErrorKind::bad_file, context_ + ": missing key '" + key + "'", at(), "a string");
+      return {};
+    }
+    auto v = n->value<std::string>();
+    if (!v) error(key, "must be a string", "a quoted TOML string");
+    if (needed && v->find_first_not_of(" \t") == std::string::npos) error(key, "is empty", "a non-empty string");
+    return *v;
+  }
+
+  bool flag(const char* key) const {
+    const toml::node* n = t_.get(key);
+    if (!n) return false;
+    auto v = n->value<bool>();
+    if (!v) error(key, "must be true or false");
+    return *v;
+  }
+
+  std::vector<std::string> list(const char* key, bool needed) const {
+    std::vector<std::string> out;
+    const toml::node* n = t_.get(key);
+    if (!n) {
+      if (needed) fail(ErrorKind::bad_file, context_ + ": missing key '" + key + "'", at(), "an array of strings");
+      return out;
+    }
+    const toml::array* arr = n->as_array();
+    if (!arr) error(key, "must be an array of strings", "[\"...\", \"...\"]");
+    for (const auto& el : *arr) {
+      auto v = el.value<std::string>();
+      if (!v) fail(ErrorKind::bad_file, context_ + ", key '" + key + "': must hold strings", position(file_, el.source()));
+      out.push_back(*v);
+    }
+    return out;
+  }
+
+  const toml::table& table() const { return t_; }
+  const std::string& file() const { return file_; }
+
+private:
+  const toml::table& t_;
+  std::string file_, context_;
+};
+
+TensorSpec spec_at(const TableReader& r, const char* key, const std::string& text) {
+  try {
+    return parse_tensor_spec(text);
+  } catch (const Error& e) {
+    r.error(key, "bad tensor spec: " + e.problem(), e.valid());
+  }
+}
+
+// Every citation carries its tag in brackets; status repeats the first one.
+void check_source_tags(const TableReader& r, const std::string& source, const std::string& status) {
+  const auto& tags = response_statuses();
+  if (std::find(tags.begin(), tags.end(), status) == tags.end())
+    r.error("status", "unknown status '" + status + "'", join(tags, ", "));
+  std::string first;
+  for (std::size_t open = source.find('['); open != std::string::npos; open = source.find('[', open + 1)) {
+    std::size_t close = source.find(']', open);
+    if (close == std::string::npos) break;
+    std::string tag = source.substr(open + 1, close - open - 1);
+    if (std::find(tags.begin(), tags.end(), tag) != tags.end()) {
+      first = tag;
+      break;
+    }
+  }
+  if (first.empty())
+    r.error("source", "no citation carries a status tag",
+            "each citation followed by [checked], [title checked], [from memory] or [common practice]");
+  if (first != status)
+    r.error("status", "'" + status + "' differs from the tag of the first source, [" + first + "]",
+            "the tag of the first (primary) citation in 'source'");
+}
+
+ResponsePart parse_part(const toml::table& t, const std::string& file, const std::string& id, std::size_t index) {
+  TableReader r(t, file, "response '" + id + "', part " + std::to_string(index + 1));
+  r.only_keys({"label", "spec", "mechanism", "hall", "excluded"});
+  ResponsePart p;
+  p.where = file + ":" + std::to_string(t.source().begin.line);
+  p.label = r.text("label");
+  p.spec_text = r.text("spec");
+  p.mechanism = r.text("mechanism", false);
+  p.hall = r.flag("hall");
+  p.spec = spec_at(r, "spec", p.spec_text);
+  p.excluded_text = r.text("excluded", false);
+  if (t.get("excluded")) {
+    if (p.excluded_text.empty()) r.error("excluded", "is empty", "a tensor spec, e.g. \"trD_: axial, time-even\"");
+    TensorSpec ex = spec_at(r, "excluded", p.excluded_text);
+    if (ex.rank >= p.spec.rank)
+      r.error("excluded", "must be a piece of lower rank than the part's spec (rank " + std::to_string(ex.rank) +
+                              " is not below " + std::to_string(p.spec.rank) + ")");
+    if (ex.axial != p.spec.axial || ex.time_odd != p.spec.time_odd)
+      r.error("excluded", "must have the parity and time parity of the part's spec (" + p.spec.description() + ")");
+    p.excluded = ex;
+  }
+  return p;
+}
+
+Response parse_response(const toml::table& t, const std::string& file, std::size_t index) {
+  const toml::node* idn = t.get("id");
+  std::string id = idn && idn->value<std::string>() ? *idn->value<std::string>() : "#" + std::to_string(index + 1);
+  TableReader r(t, file, "response '" + id + "'");
+  r.only_keys({"id", "name", "aliases", "relation", "response", "drives", "harmonic", "time_reversal", "onsager",
+               "contraction", "source", "status", "part"});
+  Response out;
+  out.where = file + ":" + std::to_string(t.source().begin.line);
+  out.id = r.text("id");
+  if (!valid_key(out.id)) r.error("id", "'" + out.id + "' is not a valid id", "lowercase letters, digits and single hyphens, e.g. anomalous-hall");
+  out.name = r.text("name");
+  out.aliases = r.list("aliases", false);
+  for (const auto& a : out.aliases)
+    if (!valid_key(a)) r.error("aliases", "'" + a + "' is not a valid alias", "lowercase letters, digits and single hyphens");
+  out.relation = r.text("relation");
+  out.response = r.text("response");
+  out.drives = r.list("drives", true);
+  for (const auto& d : out.drives)
+    if (std::find(response_drives().begin(), response_drives().end(), d) == response_drives().end())
+      r.error("drives", "unknown drive '" + d + "'", join(response_drives(), ", "));
+  out.harmonic = r.text("harmonic");
+  if (std::find(response_harmonics().begin(), response_harmonics().end(), out.harmonic) == response_harmonics().end())
+    r.error("harmonic", "unknown harmonic '" + out.harmonic + "'", join(response_harmonics(), ", "));
+  out.time_reversal = r.text("time_reversal");
+  out.onsager = r.text("onsager");
+  out.contraction = r.text("contraction");
+  out.source = r.text("source");
+  out.status = r.text("status");
+  check_source_tags(r, out.source, out.status);
+
+  const toml::node* parts = t.get("part");
+  if (!parts) fail(ErrorKind::bad_file, "response '" + out.id + "' has no [[response.part]]", r.at(),
+                   "one or more [[response.part]] tables with label and spec");
+  const toml::array* arr = parts->as_array();
+  if (!arr || arr->empty()) r.error("part", "must be one or more [[response.part]] tables");
+  for (std::size_t i = 0; i < arr->size(); ++i) {
+    const toml::table* pt = (*arr)[i].as_table();
+    if (!pt) fail(ErrorKind::bad_file, "response '" + out.id + "': 'part' must hold tables",
+                  position(file, (*arr)[i].source()), "[[response.part]] tables");
+    out.parts.push_back(parse_part(*pt, file, out.id, i));
+  }
+  return out;
+}
+
+} // namespace
+
+std::unique_ptr<ResponseCatalogue> ResponseCatalogue::load(const std::string& path) {
+  std::error_code ec;
+  if (!std::filesystem::is_regular_file(path, ec))
+    fail(ErrorKind::bad_file, "cannot read the response catalogue '" + path + "'", path,
+         "a TOML file of [[response]] tables (docs/responses.md)");
+  toml::table root;
+  try {
+    root = toml::parse_file(path);
+  } catch (const toml::parse_error& e) {
+    fail(ErrorKind::bad_file, std::string(e.description()), position(path, e.source()),
+         "TOML (https://toml.io), schema in docs/responses.md");
+  }
+  for (const auto& [k, v] : root)
+    if (k.str() != "response")
+      fail(ErrorKind::bad_file, "unknown top-level key '" + std::string(k.str()) + "'", position(path, v.source()),
+           "only [[response]] tables");
+  const toml::array* arr = root["response"].as_array();
+  if (!arr || arr->empty())
+    fail(ErrorKind::bad_file, "no [[response]] entries", path, "[[response]] tables (docs/responses.md)");
+
+  auto cat = std::make_unique<ResponseCatalogue>();
+  cat->path_ = path;
+  std::map<std::string, std::string> taken; // id or alias -> where it was defined
+  for (std::size_t i = 0; i < arr->size(); ++i) {
+    const toml::table* t = (*arr)[i].as_table();
+    if (!t) fail(ErrorKind::bad_file, "'response' must be an array of tables", position(path, (*arr)[i].source()));
+    Response r = parse_response(*t, path, i);
+    std::vector<std::string> keys{r.id};
+    keys.insert(keys.end(), r.aliases.begin(), r.aliases.end());
+    for (const auto& k : keys) {
+      auto [it, fresh] = taken.emplace(k, r.id + " (" + r.where + ")");
+      if (!fresh)
+        fail(ErrorKind::bad_file, "response '" + r.id + "': '" + k + "' is already used by " + it->second, r.where,
+             "ids and aliases unique across the catalogue");
+    }
+    cat->responses_.push_back(std::move(r));
+  }
+  return cat;
+}
+
+const ResponseCatalogue& ResponseCatalogue::builtin() {
+  static std::unique_ptr<ResponseCatalogue> cat;
+  static std::once_flag once;
+  std::call_once(once, [] { cat = load(response_catalogue_path()); });
+  return *cat;
+}
+
+const Response* ResponseCatalogue::find(const std::string& id_or_alias) const {
+  const std::string key = normalise_response_key(id_or_alias);
+  for (const auto& r : responses_)
+    if (r.id == key) return &r;
+  for (const auto& r : responses_)
+    if (std::find(r.aliases.begin(), r.aliases.end(), key) != r.aliases.end()) return &r;
+  return nullptr;
+}
+
+std::vector<std::string> ResponseCatalogue::closest_ids(const std::string& id_or_alias, std::size_t how_many) const {
+  const std::string key = normalise_response_key(id_or_alias);
+  std::vector<std::pair<std::size_t, std::string>> scored;
+  for (const auto& r : responses_) {
+    std::size_t best = edit_distance(key, r.id);
+    for (const auto& a : r.aliases) best = std::min(best, edit_distance(key, a));
+    // A typed fragment of an id ("hall") should rank that id high.
+    if (!key.empty() && r.id.find(key) != std::string::npos) best = std::min<std::size_t>(best, 1);
+    scored.emplace_back(best, r.id);
+  }
+  std::stable_sort(scored.begin(), scored.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+  std::vector<std::string> out;
+  for (std::size_t i = 0; i < scored.size() && out.size() < how_many; ++i) out.push_back(scored[i].second);
+  return out;
+}
+
+const Response& ResponseCatalogue::get(const std::string& id_or_alias) const {
+  if (const Response* r = find(id_or_alias)) return *r;
+  fail(ErrorKind::unknown_name, "unknown response '" + id_or_alias + "'", "",
+       "a response id or alias; closest: " + join(closest_ids(id_or_alias), ", ") +
+           "; `tensorsieve responses` lists all");
+}
+
+int independent_count(const ResponsePart& part, const PointGroup& group) {
+  int n = independent_count(part.spec, group);
+  if (part.excluded) n -= independent_count(*part.excluded, group);
+  if (n < 0)
+    fail(ErrorKind::internal, "the excluded piece '" + part.excluded_text + "' of part '" + part.label +
+                                  "' has more components than the part itself: it is not a summand of the spec",
+         part.where);
+  return n;
+}
+
+std::string PartForm::verdict() const {
+  const int n = independent();
+  std::string s = n > 0 ? "allowed: " + std::to_string(n) + " independent component" + (n == 1 ? "" : "s")
+                        : std::string("forbidden");
+  if (part && part->excluded && excluded > 0) {
+    const std::string ex = part->excluded->name;
+    s += n > 0 ? " (" + std::to_string(form.independent()) + " of " + part->spec.name + " less " +
+                     std::to_string(excluded) + " of " + ex + ", which does not enter)"
+               : " (only " + ex + " survives, which does not enter)";
+  }
+  return s;
+}
+
+std::vector<PartForm> response_forms(const Response& r, const PointGroup& group, const Frame& frame) {
+  std::vector<PartForm> out;
+  for (const auto& p : r.parts) {
+    PartForm pf;
+    pf.part = &p;
+    pf.form = allowed_form(p.spec, group, frame);
+    if (p.excluded) pf.excluded = independent_count(*p.excluded, group);
+    if (pf.independent() < 0)
+      fail(ErrorKind::internal, "the excluded piece '" + p.excluded_text + "' of part '" + p.label +
+                                    "' has more components than the part itself: it is not a summand of the spec",
+           p.where);
+    out.push_back(std::move(pf));
+  }
+  return out;
+}
+
+} // namespace ts

@@ -1,0 +1,357 @@
+#include "scenario/scenario_run.hpp"
+
+#include "core/error.hpp"
+#include "lowering/curie.hpp"
+#include "lowering/glazer_tilts.hpp"
+#include "response/response_catalogue.hpp"
+#include "tensor/param_tensor.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+
+namespace ts {
+
+namespace {
+
+// spglib gives Cartesian matrices in doubles; in a conventional frame every
+// entry is one of 0, ±1, ±1/2, ±√3/2, which we recover exactly.
+QSqrt3 exact_entry(double v, const std::string& where) {
+  const QSqrt3 candidates[] = {QSqrt3(0), QSqrt3(1), QSqrt3(-1), QSqrt3(Rational(1, 2)), QSqrt3(Rational(-1, 2)),
+                               QSqrt3(0, Rational(1, 2)), QSqrt3(0, Rational(-1, 2))};
+  for (const auto& c : candidates)
+    if (std::fabs(c.to_double() - v) < 1e-6) return c;
+  fail(ErrorKind::bad_group, "a symmetry operation of the structure has the entry " + std::to_string(v) +
+                                 ", so its lattice is not in a conventional Cartesian setting",
+       where, "a lattice with a along x (and b in the xy plane) in a conventional cell");
+}
+
+struct Parent {
+  PointGroup group;
+  std::string system;
+  std::string note;
+};
+
+Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
+  const auto& cat = GroupCatalogue::builtin();
+  Parent p;
+  if (!sc.group.empty()) {
+    const NamedGroup& g = cat.get(sc.group);
+    p.group = g.group;
+    p.system = g.crystal->system;
+    if (sc.assume_nonmagnetic && g.kind == MagneticKind::colourless) {
+      p.group = g.group.with_time_reversal();
+      p.note = g.symbol + " taken as non-magnetic: " + g.symbol + "1' (set nonmagnetic = false for a colourless magnetic group)";
+    }
+    return p;
+  }
+  const CrystalStructure& st = *sc.structure;
+  StructureSymmetry sym = find_structure_symmetry(st);
+  std::vector<Operation> ops;
+  bool hexagonal = false;
+  for (const auto& po : sym.point_operations) {
+    Operation op;
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j) {
+        op.R(i, j) = exact_entry(po.rotation_cartesian[i][j], st.where);
+        if (!op.R(i, j).is_rational()) hexagonal = true;
+      }
+    op.primed = po.time_reversal;
+    ops.push_back(op);
+  }
+  LatticeKind lattice = hexagonal ? LatticeKind::hexagonal : LatticeKind::orthogonal;
+  p.group = PointGroup::generate(ops, lattice, 96, st.where);
+  if (!st.magnetic && sc.assume_nonmagnetic) p.group = p.group.with_time_reversal();
+  Identification id = identify(p.group, cat);
+  p.system = id.type->crystal->system;
+  p.note = "structure: space group " + sym.space_group_symbol + " (" + std::to_string(sym.space_group_number) +
+           "), point group " + id.type->symbol + (st.magnetic ? " with the given moments" : ", non-magnetic") +
+           " (spglib, symprec " + std::to_string(sym.symprec) + ")";
+  if (!metric.known()) {
+    auto length = [&](int r) {
+      double s = 0;
+      for (double v : st.lattice[r]) s += v * v;
+      return exact_decimal(std::sqrt(s));
+    };
+    metric.a = length(0);
+    metric.b = length(1);
+    metric.c = length(2);
+  }
+  return p;
+}
+
+// A lattice direction label for an exact Cartesian vector, using the metric.
+std::string direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
+  Vec3 w = v;
+  Rational a = m.a.value_or(Rational(1)), b = m.b.value_or(a), c = m.c.value_or(a);
+  if (lattice == LatticeKind::hexagonal) {
+    w = {v[0] / QSqrt3(a), v[1] / QSqrt3(a), v[2] / QSqrt3(c)};
+  } else {
+    w = {v[0] / QSqrt3(a), v[1] / QSqrt3(b), v[2] / QSqrt3(c)};
+  }
+  std::array<long, 3> uvw{};
+  if (cartesian_to_lattice_direction(w, lattice, &uvw)) return direction_str(uvw);
+  return vec_str(v);
+}
+
+Vec3 step_direction(const std::string& text, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
+                    const std::string& where) {
+  return metric_direction(parse_direction(text, where), system, lattice, m, where);
+}
+
+Frame sample_frame(const Scenario& sc, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
+                   Vec3* normal, std::string* normal_label) {
+  Frame f;
+  if (sc.cut.empty() && sc.z.empty()) {
+    if (!sc.x.empty())
+      fail(ErrorKind::bad_geometry, "sample x given without a cut or z", sc.source, "cut = \"(001)\" or z = \"[001]\"");
+    f.labels = {"[100]", lattice == LatticeKind::hexagonal ? "[120]" : "[010]", "[001]"};
+    return f;
+  }
+  Vec3 z;
+  if (!sc.cut.empty()) {
+    CutNormal cn = parse_cut(sc.cut, system, lattice, m, sc.source + ": cut");
+    z = cn.normal;
+    std::string dir = direction_label(z, lattice, m);
+    *normal_label = cn.plane ? "normal of " + cn.text + (dir.front() == '[' ? " = " + dir : "") : cn.text;
+  } else {
+    z = step_direction(sc.z, system, lattice, m, sc.source + ": z");
+    *normal_label = direction_label(z, lattice, m);
+  }
+  *normal = z;
+  Vec3 x;
+  std::string x_label;
+  if (!sc.x.empty()) {
+    x = step_direction(sc.x, system, lattice, m, sc.source + ": x");
+    x_label = parse_direction(sc.x, "x").text;
+    if (!dot(x, z).is_zero())
+      fail(ErrorKind::bad_geometry, "sample x " + x_label + " does not lie in the sample plane (it is not perpendicular to " +
+                                        *normal_label + ")",
+           sc.source + ": x", "a direction perpendicular to the normal");
+  } else {
+    // Defaults of the trade: (001) x ∥ [100]; (110) x ∥ [001]; (111) x ∥ [1-10] (common practice).
+    static const std::array<long, 3> prefs[] = {{1, 0, 0},  {0, 0, 1}, {0, 1, 0}, {1, -1, 0}, {1, 1, 0},
+                                                {1, 0, -1}, {0, 1, -1}, {1, 2, 0}, {1, -2, 0}, {2, -1, 0},
+                                                {1, 1, -2}, {1, -2, 1}, {-2, 1, 1}};
+    bool found = false;
+    for (const auto& p : prefs) {
+      LatticeDirection d;
+      d.uvw = p;
+      d.text = direction_str(p);
+      bool mixed = lattice == LatticeKind::hexagonal && p[2] != 0 && (p[0] || p[1]);
+      if (mixed && !m.c) continue;
+      Vec3 v = metric_direction(d, system, lattice, m, "default x");
+      if (dot(v, z).is_zero()) {
+        x = v;
+        x_label = d.text;
+        found = true;
+        break;
+      }
+    }
+    if (!found) {
+      // Any exact in-plane vector: z × (a crystal axis not parallel to z).
+      for (Vec3 e : {Vec3{QSqrt3(0), QSqrt3(0), QSqrt3(1)}, Vec3{QSqrt3(1), QSqrt3(0), QSqrt3(0)}})
+        if (!parallel(e, z)) {
+          x = cross(e, z);
+          break;
+        }
+      x_label = direction_label(x, lattice, m);
+    }
+  }
+  f.axes = {x, cross(z, x), z};
+  f.labels = {x_label, direction_label(f.axes[1], lattice, m), *normal_label};
+  f.validate();
+  return f;
+}
+
+std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
+  if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
+  for (const auto& cand : GroupCatalogue::builtin().groups())
+    if (cand.type_symbol == id.type->symbol && frame_carries(frame.axes, g, cand.group)) return cand.symbol;
+  return "";
+}
+
+PointGroup tilt_group(const std::string& glazer, const PointGroup& current, const std::string& where) {
+  TiltedPerovskite tp = build_tilted_perovskite(parse_glazer_symbol(glazer));
+  std::vector<Operation> ops;
+  for (const auto& r : tp.point_rotations_pseudocubic) {
+    Operation op;
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j) op.R(i, j) = QSqrt3(r[i][j]);
+    ops.push_back(op);
+    ops.push_back({op.R, true}); // tilts are non-magnetic: they keep time reversal
+  }
+  if (current.lattice() != LatticeKind::orthogonal)
+    fail(ErrorKind::bad_geometry, "Glazer tilts belong to a perovskite with a cubic parent frame", where,
+         "a cubic (pseudocubic) parent such as m-3m");
+  return PointGroup::from_closed_set(ops, LatticeKind::orthogonal);
+}
+
+std::string step_label(const LoweringStep& s) {
+  std::string base;
+  switch (s.kind) {
+  case LoweringKind::strain: base = "strain ∥ " + s.along; break;
+  case LoweringKind::shear: base = "shear " + s.along + "/" + s.second; break;
+  case LoweringKind::polar: base = "polar displacement ∥ " + s.along; break;
+  case LoweringKind::electric_field: base = "electric field ∥ " + s.along; break;
+  case LoweringKind::moment: base = "magnetic moment ∥ " + s.along; break;
+  case LoweringKind::magnetic_field: base = "magnetic field ∥ " + s.along; break;
+  case LoweringKind::current: base = "current ∥ " + s.along; break;
+  case LoweringKind::magnetic_group: base = "magnetic order " + s.value; break;
+  case LoweringKind::tilts: base = "octahedral tilts " + s.value; break;
+  }
+  return s.label.empty() ? base : s.label + " (" + base + ")";
+}
+
+PointGroup lower(const PointGroup& g, const LoweringStep& s, const std::string& system, const LatticeMetric& m,
+                 std::string* quantity) {
+  auto dir = [&](const std::string& t) { return step_direction(t, system, g.lattice(), m, s.where); };
+  auto vec = [&](QuantityKind k) {
+    *quantity = quantity_kind_name(k);
+    return stabiliser(g, {k, dir(s.along), Mat3::identity(), ""});
+  };
+  switch (s.kind) {
+  case LoweringKind::strain:
+    *quantity = quantity_kind_name(QuantityKind::strain);
+    return stabiliser(g, {QuantityKind::strain, {}, uniaxial_strain(dir(s.along)), ""});
+  case LoweringKind::shear: {
+    Vec3 a = dir(s.along), b = dir(s.second);
+    *quantity = quantity_kind_name(QuantityKind::strain);
+    return stabiliser(g, {QuantityKind::strain, {}, shear_strain(a, b), ""});
+  }
+  case LoweringKind::polar:
+  case LoweringKind::electric_field: return vec(QuantityKind::polar_even);
+  case LoweringKind::moment:
+  case LoweringKind::magnetic_field: return vec(QuantityKind::axial_odd);
+  case LoweringKind::current: return vec(QuantityKind::polar_odd);
+  case LoweringKind::magnetic_group: {
+    const NamedGroup& order = GroupCatalogue::builtin().get(s.value);
+    if (order.group.lattice() != g.lattice())
+      fail(ErrorKind::bad_geometry, "magnetic group " + s.value + " is given in other axes than the crystal", s.where,
+           "a magnetic point group of the same crystal family, written in the crystal's axes");
+    *quantity = "intersection with the magnetic point group " + order.symbol + " (crystal axes)";
+    return g.intersection(order.group);
+  }
+  case LoweringKind::tilts:
+    *quantity = "intersection with the point group of the tilted perovskite (spglib)";
+    return g.intersection(tilt_group(s.value, g, s.where));
+  }
+  return g;
+}
+
+bool same(const Combination& a, const Combination& b) {
+  if (a.size() != b.size()) return false;
+  for (std::size_t i = 0; i < a.size(); ++i)
+    if (a[i].parameter != b[i].parameter || a[i].coefficient != b[i].coefficient) return false;
+  return true;
+}
+
+Combination sorted_value(const AllowedForm& f, int code) {
+  Combination c = f.value(code);
+  std::sort(c.begin(), c.end(), [](const LinearTerm& x, const LinearTerm& y) { return x.parameter < y.parameter; });
+  return c;
+}
+
+StepChange compare(const AllowedForm& before, const AllowedForm& after) {
+  StepChange ch;
+  ch.before = before.independent();
+  ch.after = after.independent();
+  const auto& sym = *before.symmetry;
+  for (int r = 0; r < sym.size(); ++r) {
+    int code = sym.rep_code(r);
+    if (before.components[r].empty() && !after.components[r].empty()) ch.switched_on.push_back(before.component_name(code));
+  }
+  // Relations of the form C = c·anchor, anchor the leading component of a parameter.
+  for (int j = 0; j < before.independent(); ++j) {
+    int anchor = sym.rep_code(before.parameter_components[j]);
+    Combination anchor_after = sorted_value(after, anchor);
+    for (int r = 0; r < sym.size(); ++r) {
+      const auto& v = before.components[r];
+      if (v.size() != 1 || v[0].parameter != j || sym.rep_code(r) == anchor) continue;
+      const Surd& c = v[0].coefficient;
+      Combination expected = combine({}, anchor_after, c);
+      if (!same(expected, sorted_value(after, sym.rep_code(r)))) {
+        ch.broken.push_back({before.component_name(sym.rep_code(r)), before.component_name(anchor), c});
+      }
+    }
+  }
+  return ch;
+}
+
+} // namespace
+
+ScenarioResult run_scenario(const Scenario& sc) {
+  ScenarioResult res;
+  res.scenario = sc;
+  LatticeMetric metric = sc.metric;
+  Parent parent = parent_group(sc, metric);
+  res.parent_note = parent.note;
+  const LatticeKind lattice = parent.group.lattice();
+  Vec3 normal{};
+  std::string normal_label;
+  res.frame = sample_frame(sc, parent.system, lattice, metric, &normal, &normal_label);
+  res.frame_labels = res.frame.labels;
+  const auto& cat = GroupCatalogue::builtin();
+
+  auto push = [&](const std::string& label, const std::string& quantity, PointGroup g) {
+    ChainStep st;
+    st.label = label;
+    st.quantity = quantity;
+    st.id = identify(g, cat);
+    st.sample_symbol = sample_symbol(g, st.id, res.frame);
+    if (!res.chain.empty())
+      for (const auto& op : res.chain.back().group.operations())
+        if (!g.contains(op)) st.lost.push_back(op.symbol(lattice));
+    st.group = std::move(g);
+    res.chain.push_back(std::move(st));
+  };
+  push("bulk", "", parent.group);
+  if (!sc.cut.empty()) {
+    QuantityKind k = sc.equivalent_faces ? QuantityKind::line : QuantityKind::polar_even;
+    push("cut " + sc.cut + (sc.equivalent_faces ? ", slab with equivalent faces" : ", surface or interface"),
+         sc.equivalent_faces ? "unoriented normal (both faces alike)" : "polar normal (film side differs from substrate side)",
+         stabiliser(parent.group, {k, normal, Mat3::identity(), ""}));
+  }
+  for (const auto& s : sc.steps) {
+    std::string quantity;
+    PointGroup g = lower(res.chain.back().group, s, parent.system, metric, &quantity);
+    push(step_label(s), quantity, std::move(g));
+  }
+
+  const auto& responses = ResponseCatalogue::builtin();
+  for (const auto& id : sc.responses) {
+    const Response& r = responses.get(id);
+    for (const auto& part : r.parts) res.parts.push_back({r.id, r.name, part.label, part.spec, {}});
+  }
+  for (const auto& t : sc.tensors) res.parts.push_back({"", "tensor " + t, t, parse_tensor_spec(t), {}});
+  for (auto& p : res.parts)
+    for (const auto& st : res.chain) p.forms.push_back(allowed_form(p.spec, st.group, res.frame));
+
+  for (std::size_t i = 1; i < res.chain.size(); ++i)
+    for (std::size_t k = 0; k < res.parts.size(); ++k) {
+      StepChange ch = compare(res.parts[k].forms[i - 1], res.parts[k].forms[i]);
+      ch.step = i;
+      ch.part = k;
+      res.changes.push_back(std::move(ch));
+    }
+
+  if (sc.domains) {
+    std::size_t from = sc.cut.empty() ? 0 : 1;
+    PointGroup h = res.chain[from].group;
+    for (const auto& s : sc.steps) {
+      bool applied = s.kind == LoweringKind::magnetic_field || s.kind == LoweringKind::electric_field ||
+                     s.kind == LoweringKind::current;
+      std::string ignored;
+      if (!applied) h = lower(h, s, parent.system, metric, &ignored);
+    }
+    if (h.order() < res.chain[from].group.order())
+      for (std::size_t k = 0; k < res.parts.size(); ++k) {
+        AllowedForm form = allowed_form(res.parts[k].spec, h, res.frame);
+        DomainAnalysis a = domain_variants(res.chain[from].group, h, form, res.frame);
+        res.domains.push_back({k, from, h, std::move(form), std::move(a)});
+      }
+  }
+  return res;
+}
+
+} // namespace ts
