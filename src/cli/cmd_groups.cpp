@@ -65,6 +65,7 @@ void setup_identify(CLI::App& app) {
     for (std::size_t i = 0; i < o->ops.size(); ++i)
       gens.push_back(parse_operation(o->ops[i], lattice, "operation " + std::to_string(i + 1)));
     PointGroup g = PointGroup::generate(gens, lattice, 96, "the generators");
+    require_lattice_group(g, "the generators");
     const auto& cat = GroupCatalogue::builtin();
     emit(o->out, write_identification(g, identify(g, cat), parse_format(o->out.format)));
   });

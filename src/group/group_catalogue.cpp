@@ -125,6 +125,7 @@ CrystalClass parse_entry(const toml::table& t, const std::string& file) {
   for (const auto& g : string_list(t, "generators", file, true))
     c.generators.push_back(parse_operation(g, c.lattice, at));
   c.group = PointGroup::generate(c.generators, c.lattice, 48, at);
+  require_lattice_group(c.group, at);
   if (static_cast<std::int64_t>(c.group.order()) != order)
     fail(ErrorKind::bad_file,
          "generators give " + std::to_string(c.group.order()) + " operations, 'order' says " +

@@ -11,6 +11,22 @@ namespace {
 void sort_canonical(std::vector<Operation>& ops) {
   std::stable_sort(ops.begin(), ops.end(), canonical_less);
 }
+
+// A point operation of a crystal maps its lattice onto itself: its matrix in
+// the lattice basis is integral (the trace test alone lets through a 2-fold
+// about [210] of a square lattice, which preserves no lattice).
+bool preserves_lattice(const Mat3& R, LatticeKind lattice) {
+  Mat3 B = Mat3::identity(); // columns: lattice basis vectors in Cartesian components
+  if (lattice == LatticeKind::hexagonal) {
+    B(0, 1) = QSqrt3(Rational(-1, 2));
+    B(1, 1) = QSqrt3(0, Rational(1, 2));
+  }
+  Mat3 W = B.inverse() * R * B;
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j)
+      if (!W(i, j).is_rational() || !W(i, j).rational_part().is_integer()) return false;
+  return true;
+}
 } // namespace
 
 PointGroup PointGroup::from_closed_set(std::vector<Operation> ops, LatticeKind lattice) {
@@ -32,6 +48,7 @@ PointGroup PointGroup::generate(const std::vector<Operation>& generators, Lattic
     } catch (const Error& e) {
       fail(ErrorKind::bad_group, e.problem(), where, e.valid());
     }
+
   }
   std::vector<Operation> ops{Operation::identity()};
   for (std::size_t i = 0; i < ops.size(); ++i) {
@@ -53,6 +70,18 @@ PointGroup PointGroup::generate(const std::vector<Operation>& generators, Lattic
     }
   }
   return from_closed_set(std::move(ops), lattice);
+}
+
+void require_lattice_group(const PointGroup& g, const std::string& where) {
+  for (const auto& op : g.operations())
+    if (!preserves_lattice(op.R, g.lattice()))
+      fail(ErrorKind::bad_group,
+           "operation " + op.symbol(g.lattice()) + " maps no lattice of these axes onto itself (its matrix in the " +
+               (g.lattice() == LatticeKind::hexagonal ? std::string("hexagonal") : std::string("orthogonal")) +
+               " lattice basis is not integral)",
+           where,
+           "operations of a crystal's point group: 2 along [100], [110], ... (orthogonal axes); 3 and 6 along [001] "
+           "with hexagonal axes");
 }
 
 bool PointGroup::contains(const Operation& g) const { return index_of(g) >= 0; }

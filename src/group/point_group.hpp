@@ -56,6 +56,11 @@ private:
   mutable std::vector<Operation> generators_cache_; // filled on first use
 };
 
+// Throws Error(bad_group) unless every operation maps the lattice of the
+// group's axes onto itself (integral matrix in the lattice basis). Applied to
+// groups the user defines; rotated copies of groups inside the library are exempt.
+void require_lattice_group(const PointGroup& g, const std::string& where);
+
 // Multiplication table of a group by operation index: table[i*n + j] = index of ops[i]*ops[j].
 std::vector<int> multiplication_table(const PointGroup& g);
 

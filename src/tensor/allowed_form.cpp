@@ -1,5 +1,6 @@
 #include "tensor/allowed_form.hpp"
 
+#include "core/big_qsqrt3.hpp"
 #include "core/error.hpp"
 
 #include <algorithm>
@@ -189,21 +190,39 @@ std::vector<Row> circular_to_cartesian(const IndexSymmetry& sym,
   return rows;
 }
 
+std::int64_t height(const QSqrt3& x) {
+  auto mag = [](const Rational& v) { return std::max(v.num() < 0 ? -v.num() : v.num(), v.den()); };
+  return std::max(mag(x.rational_part()), mag(x.sqrt3_part()));
+}
+std::int64_t height(const BigQSqrt3& x) { return x.height(); }
+
 // Gauss-Jordan elimination in place; returns pivot columns. Rows that vanish are removed.
-std::vector<int> rref(std::vector<Row>& rows, int ncols) {
+template <typename F>
+std::vector<int> rref_in(std::vector<std::vector<F>>& rows, int ncols) {
   std::vector<int> pivots;
   std::size_t r = 0;
   for (int c = 0; c < ncols && r < rows.size(); ++c) {
-    std::size_t p = r;
-    while (p < rows.size() && rows[p][c].is_zero()) ++p;
+    // Pivot on the simplest nonzero entry (rational and small before irrational
+    // or large): keeps the exact numbers short through the elimination.
+    std::size_t p = rows.size();
+    std::pair<bool, std::int64_t> best{};
+    for (std::size_t q = r; q < rows.size(); ++q) {
+      const F& x = rows[q][c];
+      if (x.is_zero()) continue;
+      std::pair<bool, std::int64_t> h{!x.is_rational(), height(x)};
+      if (p == rows.size() || h < best) {
+        p = q;
+        best = h;
+      }
+    }
     if (p == rows.size()) continue;
     std::swap(rows[r], rows[p]);
-    QSqrt3 inv = QSqrt3(1) / rows[r][c];
+    F inv = F(QSqrt3(1)) / rows[r][c];
     for (int j = c; j < ncols; ++j)
       if (!rows[r][j].is_zero()) rows[r][j] = rows[r][j] * inv;
     for (std::size_t i = 0; i < rows.size(); ++i) {
       if (i == r || rows[i][c].is_zero()) continue;
-      QSqrt3 f = rows[i][c];
+      F f = rows[i][c];
       for (int j = c; j < ncols; ++j)
         if (!rows[r][j].is_zero()) rows[i][j] -= f * rows[r][j];
     }
@@ -211,6 +230,31 @@ std::vector<int> rref(std::vector<Row>& rows, int ncols) {
     ++r;
   }
   rows.resize(r);
+  return pivots;
+}
+
+// Elimination on 64-bit rationals, redone on CLN's big rationals when a number
+// outgrows them (the reduced result is small again and converts back).
+std::vector<int> rref(std::vector<Row>& rows, int ncols) {
+  std::vector<Row> copy = rows;
+  try {
+    return rref_in(rows, ncols);
+  } catch (const Error& e) {
+    if (e.kind() != ErrorKind::internal) throw;
+  }
+  std::vector<std::vector<BigQSqrt3>> big;
+  for (const auto& row : copy) {
+    std::vector<BigQSqrt3> b;
+    for (const auto& x : row) b.emplace_back(x);
+    big.push_back(std::move(b));
+  }
+  std::vector<int> pivots = rref_in(big, ncols);
+  rows.clear();
+  for (const auto& b : big) {
+    Row row;
+    for (const auto& x : b) row.push_back(x.to_small());
+    rows.push_back(std::move(row));
+  }
   return pivots;
 }
 

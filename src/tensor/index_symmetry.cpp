@@ -58,6 +58,21 @@ IndexSymmetry::IndexSymmetry(const TensorSpec& spec) : rank_(spec.rank) {
         contradictory = true; // e.g. sym(ij) together with antisym(ij): the tensor vanishes
       }
     }
+  // The solver imposes invariance on one representative per index-symmetry
+  // class; that is exact only when the Onsager exchange maps classes onto
+  // classes, i.e. when it normalises the index permutations.
+  if (!spec.onsager.empty() && !contradictory)
+    for (const auto& g : spec.symmetries) {
+      std::vector<int> conj(rank_);
+      for (int p = 0; p < rank_; ++p) conj[p] = spec.onsager[g.perm[spec.onsager[p]]];
+      auto it = group.find(conj);
+      if (it == group.end() || it->second != g.sign)
+        fail(ErrorKind::bad_spec,
+             "tensor spec '" + spec.canonical_text() +
+                 "': the onsager(...) exchange does not respect the index symmetry (it maps a symmetric index "
+                 "pair onto indices that are not symmetric)",
+             "", "exchange index groups that the index symmetry treats alike, e.g. rho_abkl: sym(kl), onsager(a,b)");
+    }
   reduced_.assign(full_size_, -1);
   sign_.assign(full_size_, 0);
   for (int code = 0; code < full_size_; ++code) {

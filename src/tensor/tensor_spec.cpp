@@ -115,6 +115,7 @@ struct JahnParser {
       ++pos;
       Block b;
       b.size = base.size * k;
+      check_rank(b.size, text); // before building copies: nested powers grow fast
       std::vector<std::vector<int>> copies;
       for (int i = 0; i < k; ++i) {
         std::vector<int> blk(base.size);
@@ -137,11 +138,11 @@ struct JahnParser {
     while (pos < text.size()) {
       Block f = factor();
       int k = exponent();
+      check_rank(whole.size + f.size * k, text);
       for (int i = 0; i < k; ++i) {
         shift_into(whole, f, whole.size);
         whole.size += f.size;
       }
-      if (whole.size > 64) break;
     }
     if (whole.size == 0 && text.empty()) spec_error(text, 0, "empty spec");
     spec.rank = whole.size;
