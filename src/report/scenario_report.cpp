@@ -112,7 +112,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     for (std::size_t k = 0; k < r.parts.size(); ++k) {
       const auto& p = r.parts[k];
       toml::array counts;
-      for (const auto& fm : p.forms) counts.push_back(static_cast<std::int64_t>(fm.independent()));
+      for (int c : p.counts) counts.push_back(static_cast<std::int64_t>(c));
       toml::table final_form;
       FrameContext fc{r.frame_labels, false};
       form_json(p.forms.back(), context_of(r.chain.back(), lattice), fc, final_form);
@@ -186,7 +186,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
                   f);
     std::vector<std::vector<std::string>> counts;
     for (std::size_t i = 0; i < r.chain.size(); ++i) {
-      int n = p.forms[i].independent();
+      int n = p.counts[i];
       counts.push_back({std::to_string(i), code(group_name(r.chain[i]), f), std::to_string(n), n > 0 ? "allowed" : "forbidden"});
     }
     os << grid({"step", "group", "independent", "verdict"}, counts, f) << "\n";
@@ -204,6 +204,9 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     }
     os << "\n";
     FrameContext fc{r.frame_labels, false};
+    if (p.excluded)
+      os << (f == Format::latex ? "% " : "  ") << "note: the response does not see the " << p.excluded->name << " piece ("
+         << p.excluded->description() << ") of this tensor; the counts above leave it out, the form below includes it\n\n";
     os << write_form(p.forms.back(), context_of(r.chain.back(), lattice), fc, f, View::automatic) << "\n";
     for (const auto& d : r.domains) {
       if (d.part != k) continue;

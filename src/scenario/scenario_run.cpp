@@ -321,15 +321,20 @@ ScenarioResult run_scenario(const Scenario& sc) {
   const auto& responses = ResponseCatalogue::builtin();
   for (const auto& id : sc.responses) {
     const Response& r = responses.get(id);
-    for (const auto& part : r.parts) res.parts.push_back({r.id, r.name, part.label, part.spec, {}});
+    for (const auto& part : r.parts) res.parts.push_back({r.id, r.name, part.label, part.spec, part.excluded, {}, {}});
   }
-  for (const auto& t : sc.tensors) res.parts.push_back({"", "tensor " + t, t, parse_tensor_spec(t), {}});
+  for (const auto& t : sc.tensors) res.parts.push_back({"", "tensor " + t, t, parse_tensor_spec(t), std::nullopt, {}, {}});
   for (auto& p : res.parts)
-    for (const auto& st : res.chain) p.forms.push_back(allowed_form(p.spec, st.group, res.frame));
+    for (const auto& st : res.chain) {
+      p.forms.push_back(allowed_form(p.spec, st.group, res.frame));
+      p.counts.push_back(p.forms.back().independent() - (p.excluded ? independent_count(*p.excluded, st.group) : 0));
+    }
 
   for (std::size_t i = 1; i < res.chain.size(); ++i)
     for (std::size_t k = 0; k < res.parts.size(); ++k) {
       StepChange ch = compare(res.parts[k].forms[i - 1], res.parts[k].forms[i]);
+      ch.before = res.parts[k].counts[i - 1];
+      ch.after = res.parts[k].counts[i];
       ch.step = i;
       ch.part = k;
       res.changes.push_back(std::move(ch));

@@ -9,6 +9,7 @@
 #include "scenario/scenario.hpp"
 #include "tensor/allowed_form.hpp"
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -26,7 +27,9 @@ struct ChainStep {
 struct PartForms {
   std::string response_id, response_name, part_label;
   TensorSpec spec;
-  std::vector<AllowedForm> forms; // one per chain step, in the sample frame
+  std::optional<TensorSpec> excluded; // a piece the response does not see (counts subtract it)
+  std::vector<AllowedForm> forms;     // one per chain step, in the sample frame
+  std::vector<int> counts;            // independent components the response sees, per step
 };
 
 // A relation C = factor·anchor of the previous step that a lowering broke.
