@@ -1,0 +1,42 @@
+// Timing helpers of the benchmark: a steady clock, medians over repeats, peak
+// memory, and one fixed line layout so runs can be compared by diff.
+#pragma once
+
+#include <chrono>
+#include <functional>
+#include <string>
+#include <vector>
+
+namespace ts::bench {
+
+using Clock = std::chrono::steady_clock;
+
+// Seconds taken by one call of job.
+double seconds_of(const std::function<void()>& job);
+
+struct Timing {
+  double first = 0;  // the first (cold) run: caches such as group generators still empty
+  double median = 0; // median of all runs, the first included
+  int runs = 0;
+};
+// Run job `repeats` times (at least once).
+Timing time_repeated(int repeats, const std::function<void()>& job);
+
+double median_of(std::vector<double> v);
+
+// Peak resident set size of this process in MiB (getrusage ru_maxrss).
+double peak_memory_mib();
+
+// "12.34 ms", "567.8 us", "1.234 s": three or four significant figures.
+std::string duration_text(double seconds);
+
+// One figure per line: label, value, target, verdict, in fixed columns.
+void print_figure(const std::string& label, const std::string& value, const std::string& target = "no target",
+                  const std::string& verdict = "-");
+void print_header();
+// "met" or "MISSED", and counts it for the closing summary.
+std::string verdict(bool met);
+int targets_checked();
+int targets_met();
+
+} // namespace ts::bench

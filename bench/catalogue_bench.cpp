@@ -1,0 +1,321 @@
+// tensorsieve_bench: how fast the exact engine is, printed as figures beside
+// their targets (docs/performance.md records a run and the machine).
+//
+// What it times, single-threaded, with std::chrono::steady_clock:
+//   - GroupCatalogue::load (TOML parsing and derivation of the 122 types);
+//   - the whole catalogue of exact allowed FORMS (allowed_form, with every
+//     component as an exact combination) of the specs below in all 122
+//     magnetic point-group types, cold (first pass, generators still to be
+//     found) and as the median of repeated passes;
+//   - single rank-5 and rank-6 tensors without index symmetry in m-3m, 6/mmm
+//     and -3 (rank 5 also in 432, 622, 3), each from a fresh group (generators
+//     re-derived every run);
+//   - two probes of the slower exact paths: Gaussian elimination over Q(√3)
+//     for a group that is monomial in no basis, and a form rotated into a
+//     sample frame (surds);
+//   - peak memory (getrusage ru_maxrss).
+// Targets, on one core of the 2-core reference machine: whole catalogue
+// < 0.5 s, any single rank-6 form < 0.2 s, peak memory < 200 MB. A missed
+// target is reported, never turned into a failing exit status: speed is shown,
+// not asserted.
+#include "bench_clock.hpp"
+
+#include "core/data_dir.hpp"
+#include "core/error.hpp"
+#include "geometry/sample_frame.hpp"
+#include "group/group_catalogue.hpp"
+#include "tensor/allowed_form.hpp"
+
+#include <cstdio>
+#include <cstdlib>
+#include <functional>
+#include <iostream>
+#include <map>
+#include <string>
+#include <thread>
+#include <vector>
+
+namespace ts::bench {
+
+namespace {
+
+// The built-in specs up to rank 4, each with a response it stands for
+// (physics-spec.md, section 1).
+struct CatalogueSpec {
+  const char* text;
+  const char* meaning;
+};
+const CatalogueSpec catalogue_specs[] = {
+    // rank 1
+    {"V", "polar vector: pyroelectric polarisation"},
+    {"eV", "axial time-even vector"},
+    {"aV", "polar time-odd vector: toroidal moment"},
+    {"aeV", "axial time-odd vector: magnetisation, Hall vector"},
+    // rank 2
+    {"[V2]", "symmetric polar: dielectric tensor, symmetric conductivity"},
+    {"{V2}", "antisymmetric polar pair"},
+    {"a{V2}", "antisymmetric c-type pair: Hall part of the conductivity"},
+    {"V2", "general polar rank 2"},
+    {"aV2", "general c-type rank 2"},
+    {"eV2", "axial rank 2: current-induced spin polarisation"},
+    {"aeV2", "axial c-type rank 2: linear magnetoelectric tensor"},
+    {"a[V2]", "symmetric c-type pair"},
+    {"ae[V2]", "symmetric axial c-type pair"},
+    {"sigma_ab: onsager(a,b)", "linear conductivity with the Onsager-Kleiner rule"},
+    // rank 3
+    {"V[V2]", "piezoelectric, SHG d, second-order conductivity (i-type)"},
+    {"aV[V2]", "second-order conductivity, c-type part"},
+    {"eV[V2]", "magnetic-dipole SHG, axial rank 3"},
+    {"aeV[V2]", "axial c-type rank 3"},
+    {"[V3]", "fully symmetric rank 3 (Kleinman-symmetric SHG)"},
+    {"V3", "general polar rank 3"},
+    {"aV3", "general c-type polar rank 3"},
+    {"eV3", "general axial rank 3"},
+    {"ae[V2]V", "piezomagnetic; symmetric odd-in-B magnetoresistance (c-type)"},
+    {"rho_abk: axial, time-odd, onsager(a,b)", "field-linear resistivity with the Onsager-Kleiner rule"},
+    // rank 4
+    {"[[V2]2]", "elastic stiffness"},
+    {"[V2][V2]", "electrostriction, photoelasticity, quadratic magnetoresistance"},
+    {"a[V2][V2]", "c-type [V2][V2]"},
+    {"V[V3]", "third-order conductivity, chi(3)"},
+    {"aV[V3]", "third-order conductivity, c-type part"},
+    {"[V4]", "fully symmetric rank 4"},
+    {"V4", "general polar rank 4"},
+    {"eV[V2]V", "electrical magnetochiral anisotropy (i-type)"},
+    {"aeV[V2]V", "electrical magnetochiral anisotropy, c-type part"},
+    {"rho_abkl: sym(kl), onsager(a,b)", "field-quadratic resistivity with the Onsager-Kleiner rule"},
+};
+
+struct Args {
+  int repeats = 5;
+  bool per_spec = true;
+  bool list = false;
+};
+
+Args parse_args(int argc, char** argv) {
+  Args a;
+  const std::string valid = "--repeats N (1..1000, default 5), --no-per-spec, --list, --help";
+  for (int i = 1; i < argc; ++i) {
+    std::string s = argv[i];
+    if (s == "--repeats") {
+      if (i + 1 >= argc) fail(ErrorKind::usage, "--repeats needs a number", "--repeats", valid);
+      std::string v = argv[++i];
+      char* end = nullptr;
+      long n = std::strtol(v.c_str(), &end, 10);
+      if (v.empty() || *end != '\0' || n < 1 || n > 1000)
+        fail(ErrorKind::usage, "'" + v + "' is not a repeat count", "--repeats", "an integer from 1 to 1000");
+      a.repeats = static_cast<int>(n);
+    } else if (s == "--no-per-spec") {
+      a.per_spec = false;
+    } else if (s == "--list") {
+      a.list = true;
+    } else if (s == "--help" || s == "-h") {
+      std::printf("usage: tensorsieve_bench [--repeats N] [--no-per-spec] [--list]\n"
+                  "  --repeats N    runs per figure; figures are medians (default 5)\n"
+                  "  --no-per-spec  skip the per-spec breakdown of the catalogue\n"
+                  "  --list         print the catalogue's specs and exit\n");
+      std::exit(0);
+    } else {
+      fail(ErrorKind::usage, "unknown argument '" + s + "'", "command line", valid);
+    }
+  }
+  return a;
+}
+
+std::string target_ms(double ms) { return "< " + std::to_string(static_cast<int>(ms)) + " ms"; }
+
+// A copy of the group with no cached generators, so each run pays for them.
+PointGroup fresh(const PointGroup& g) { return PointGroup::from_closed_set(g.operations(), g.lattice()); }
+
+struct Checksum {
+  long forms = 0, parameters = 0, terms = 0;
+  void add(const AllowedForm& f) {
+    ++forms;
+    parameters += f.independent();
+    for (const auto& c : f.components) terms += static_cast<long>(c.size());
+  }
+};
+
+// One big form timed from a fresh group. Rank 6 carries the single-form
+// target. An exact-arithmetic failure is printed as the figure (and counts as a
+// missed target) so that the remaining figures still appear.
+void time_single_form(int repeats, const std::string& what, const TensorSpec& spec,
+                      const std::function<AllowedForm()>& job) {
+  const bool targeted = spec.rank == 6;
+  int independent = -1;
+  try {
+    Timing t = time_repeated(repeats, [&] { independent = job().independent(); });
+    std::string label = what + " (" + std::to_string(independent) + " independent)";
+    if (targeted) print_figure(label, duration_text(t.median), target_ms(200), verdict(t.median < 0.2));
+    else print_figure(label, duration_text(t.median));
+  } catch (const Error& e) {
+    std::string why = "FAILED: " + e.problem();
+    if (targeted) {
+      verdict(false);
+      print_figure(what, "no result", target_ms(200), why);
+    } else {
+      print_figure(what, "no result", "no target", why);
+    }
+  }
+}
+
+int run(const Args& args) {
+  const int R = args.repeats;
+  std::vector<TensorSpec> specs;
+  for (const auto& s : catalogue_specs) specs.push_back(parse_tensor_spec(s.text));
+  if (args.list) {
+    for (std::size_t i = 0; i < specs.size(); ++i)
+      std::printf("%-40s rank %d  %s\n", catalogue_specs[i].text, specs[i].rank, catalogue_specs[i].meaning);
+    return 0;
+  }
+  const std::string data = data_directory();
+  std::printf("tensorsieve_bench %s: timings of the exact engine\n", TENSORSIEVE_VERSION);
+  std::printf("  clock std::chrono::steady_clock; 1 thread (hardware threads: %u); %d runs per figure, "
+              "median unless marked\n",
+              std::thread::hardware_concurrency(), R);
+  std::printf("  data directory %s\n\n", data.c_str());
+  print_header();
+
+  // ---- group catalogue load --------------------------------------------------
+  std::unique_ptr<GroupCatalogue> cat;
+  Timing load = time_repeated(R, [&] { cat = GroupCatalogue::load(data); });
+  print_figure("group catalogue load (GroupCatalogue::load), first run", duration_text(load.first));
+  print_figure("group catalogue load (GroupCatalogue::load), median", duration_text(load.median));
+  const auto types = cat->types();
+  print_figure("magnetic point-group types in the catalogue", std::to_string(types.size()));
+
+  // ---- the whole catalogue of forms --------------------------------------------
+  const long n_forms = static_cast<long>(specs.size() * types.size());
+  std::vector<std::vector<double>> per_spec(specs.size());
+  Checksum sum;
+  std::vector<double> passes;
+  for (int pass = 0; pass < R; ++pass) {
+    Checksum c;
+    double total = seconds_of([&] {
+      for (std::size_t s = 0; s < specs.size(); ++s) {
+        double t = seconds_of([&] {
+          for (const auto* g : types) c.add(allowed_form(specs[s], g->group));
+        });
+        per_spec[s].push_back(t);
+      }
+    });
+    passes.push_back(total);
+    if (pass == 0) sum = c;
+    else if (c.parameters != sum.parameters || c.terms != sum.terms)
+      fail(ErrorKind::internal, "the catalogue gave different forms on pass " + std::to_string(pass + 1));
+  }
+  const double cold = passes.front(), warm = median_of(passes);
+  print_figure("catalogue: specs (rank 1-4, listed by --list)", std::to_string(specs.size()));
+  print_figure("catalogue: forms (specs x types)", std::to_string(n_forms));
+  print_figure("catalogue: sum of independent parameters", std::to_string(sum.parameters));
+  print_figure("catalogue: sum of nonzero reduced-component terms", std::to_string(sum.terms));
+  print_figure("catalogue wall time, first pass (cold)", duration_text(cold), target_ms(500),
+               verdict(cold < 0.5));
+  print_figure("catalogue wall time, median of passes", duration_text(warm), target_ms(500),
+               verdict(warm < 0.5));
+  print_figure("catalogue time per form, first pass", duration_text(cold / n_forms));
+  print_figure("catalogue time per form, median pass", duration_text(warm / n_forms));
+
+  std::map<SolverPath, int> paths;
+  for (const auto* g : types) ++paths[solver_path(g->group)];
+  print_figure("types solved by signed permutations (orbits)",
+               std::to_string(paths[SolverPath::signed_permutation]));
+  print_figure("types solved in the circular basis x+-iy, z (orbits)",
+               std::to_string(paths[SolverPath::circular_basis]));
+  print_figure("types solved by elimination over Q(sqrt 3)",
+               std::to_string(paths[SolverPath::general_elimination]));
+
+  Timing counts = time_repeated(R, [&] {
+    long p = 0;
+    for (const auto& s : specs)
+      for (const auto* g : types) p += independent_count(s, g->group);
+    if (p != sum.parameters) fail(ErrorKind::internal, "independent_count disagrees with allowed_form");
+  });
+  print_figure("counts only (independent_count, survey path), median", duration_text(counts.median));
+
+  if (args.per_spec) {
+    std::printf("\n");
+    for (std::size_t s = 0; s < specs.size(); ++s)
+      print_figure("  row of " + std::to_string(types.size()) + " forms: " + catalogue_specs[s].text,
+                   duration_text(median_of(per_spec[s])));
+  }
+
+  // ---- single big tensors ----------------------------------------------------------
+  std::printf("\n");
+  struct Big {
+    const char* spec;
+    const char* group;
+  };
+  // The three centrosymmetric groups kill every odd-rank polar tensor, so V5
+  // is also timed in their rotation subgroups, where it has a real form.
+  const Big bigs[] = {{"V5", "m-3m"}, {"V5", "6/mmm"}, {"V5", "-3"}, {"V5", "432"}, {"V5", "622"},
+                      {"V5", "3"},    {"V6", "m-3m"},  {"V6", "6/mmm"}, {"V6", "-3"}};
+  for (const auto& b : bigs) {
+    TensorSpec spec = parse_tensor_spec(b.spec);
+    const PointGroup& G = cat->get(b.group).group;
+    time_single_form(R, "rank " + std::to_string(spec.rank) + ": " + b.spec + " in " + b.group, spec,
+                     [&] { return allowed_form(spec, fresh(G)); });
+  }
+
+  // ---- the slower exact paths --------------------------------------------------------
+  {
+    // m-3m turned by 30° about z: its 4-folds about x and y are monomial in
+    // neither the Cartesian nor the circular basis, so the solver eliminates.
+    Mat3 Q;
+    Q.m[0] = {QSqrt3(0, Rational(1, 2)), QSqrt3(Rational(-1, 2)), QSqrt3(0)};
+    Q.m[1] = {QSqrt3(Rational(1, 2)), QSqrt3(0, Rational(1, 2)), QSqrt3(0)};
+    Q.m[2] = {QSqrt3(0), QSqrt3(0), QSqrt3(1)};
+    const PointGroup turned = cat->get("m-3m").group.conjugated(Q);
+    if (solver_path(turned) != SolverPath::general_elimination)
+      fail(ErrorKind::internal, "the turned m-3m was expected to need elimination");
+    for (const char* s : {"[[V2]2]", "V4", "V6"}) {
+      TensorSpec spec = parse_tensor_spec(s);
+      time_single_form(R, "elimination: " + std::string(s) + " in m-3m turned 30 deg about z", spec,
+                       [&] { return allowed_form(spec, fresh(turned)); });
+    }
+    // 6/mmm with its 6-fold along x, as a structure whose c axis lies along x
+    // arrives from spglib: the in-plane rotations are monomial in no basis.
+    Mat3 P;
+    P.m[0] = {QSqrt3(0), QSqrt3(0), QSqrt3(1)};
+    P.m[1] = {QSqrt3(1), QSqrt3(0), QSqrt3(0)};
+    P.m[2] = {QSqrt3(0), QSqrt3(1), QSqrt3(0)};
+    const PointGroup sideways = cat->get("6/mmm").group.conjugated(P);
+    for (const char* s : {"[[V2]2]", "V4", "V6"}) {
+      TensorSpec spec = parse_tensor_spec(s);
+      time_single_form(R, "elimination: " + std::string(s) + " in 6/mmm with the 6-fold along x", spec,
+                       [&] { return allowed_form(spec, fresh(sideways)); });
+    }
+    // A sample frame z ∥ [111], x ∥ [1-10]: components become surds (√2, √6).
+    const NamedGroup& cubic = cat->get("m-3m");
+    Frame frame = frame_from_directions("[111]", "[1-10]", cubic.group.lattice(), "bench");
+    for (const char* s : {"[[V2]2]", "V6"}) {
+      TensorSpec spec = parse_tensor_spec(s);
+      time_single_form(R, "surds: " + std::string(s) + " in m-3m, z || [111], x || [1-10]", spec,
+                       [&] { return allowed_form(spec, fresh(cubic.group), frame); });
+    }
+  }
+
+  // ---- memory and summary ---------------------------------------------------------------
+  std::printf("\n");
+  const double mib = peak_memory_mib();
+  char mem[32];
+  std::snprintf(mem, sizeof mem, "%.1f MiB", mib);
+  print_figure("peak memory (getrusage ru_maxrss)", mem, "< 200 MB", verdict(mib * 1.048576 < 200.0));
+  std::printf("\ntargets met: %d of %d\n", targets_met(), targets_checked());
+  return 0;
+}
+
+} // namespace
+} // namespace ts::bench
+
+int main(int argc, char** argv) {
+  try {
+    return ts::bench::run(ts::bench::parse_args(argc, argv));
+  } catch (const ts::Error& e) {
+    std::cerr << "tensorsieve_bench: error: " << e.what() << "\n";
+    return e.exit_code();
+  } catch (const std::exception& e) {
+    std::cerr << "tensorsieve_bench: internal error: " << e.what() << "\n";
+    return static_cast<int>(ts::ErrorKind::internal);
+  }
+}
