@@ -1,5 +1,6 @@
 // tensorsieve form GROUP SPEC | survey SPEC
 #include "cli/commands.hpp"
+#include "cli/frame_options.hpp"
 #include "core/error.hpp"
 #include "geometry/sample_frame.hpp"
 #include "report/form_report.hpp"
@@ -29,16 +30,7 @@ void setup_form(CLI::App& app) {
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);
     FrameContext fc;
-    Frame frame;
-    if (!o->z.empty() || !o->x.empty()) {
-      if (o->z.empty() || o->x.empty())
-        fail(ErrorKind::usage, "a frame needs both --z and --x", "--z/--x", "--z [110] --x [001]");
-      frame = frame_from_directions(o->z, o->x, g.group.lattice(), "--z/--x");
-      fc.axes = frame.labels;
-      fc.crystal_frame = false;
-    } else if (g.group.lattice() == LatticeKind::hexagonal) {
-      fc.axes = {"[100]", "[120]", "[001]"};
-    }
+    Frame frame = frame_from_options(o->z, o->x, g.group.lattice(), &fc);
     AllowedForm form = allowed_form(spec, g.group, frame);
     emit(o->out, write_form(form, GroupContext::of(g), fc, format, view));
   });
