@@ -11,14 +11,17 @@ namespace fs = std::filesystem;
 namespace ts {
 
 namespace {
+// An installed binary (prefix/bin/tensorsieve) uses its own prefix/share first,
+// so a copy installed elsewhere never reads a stale source tree; a binary in the
+// build tree has no such directory beside it and falls through to the sources.
 std::vector<std::string> candidate_roots() {
   std::vector<std::string> c;
   if (const char* env = std::getenv("TENSORSIEVE_DATA"); env && *env) c.emplace_back(env);
-  c.emplace_back(TENSORSIEVE_SOURCE_DATA_DIR);
-  c.emplace_back(TENSORSIEVE_INSTALL_DATA_DIR);
   std::error_code ec;
   fs::path exe = fs::read_symlink("/proc/self/exe", ec);
   if (!ec) c.push_back((exe.parent_path().parent_path() / "share" / "tensorsieve").string());
+  c.emplace_back(TENSORSIEVE_SOURCE_DATA_DIR);
+  c.emplace_back(TENSORSIEVE_INSTALL_DATA_DIR);
   return c;
 }
 } // namespace

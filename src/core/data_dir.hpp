@@ -1,7 +1,7 @@
 // Where tensorsieve finds its data (groups/, the response catalogue): the
-// directory named by $TENSORSIEVE_DATA, else the source tree it was built
-// from, else the installed share/tensorsieve, else share/tensorsieve beside the
-// running executable's prefix.
+// directory named by $TENSORSIEVE_DATA, else share/tensorsieve of the running
+// executable's prefix (an installed copy), else the source tree it was built
+// from, else the configured install directory.
 #pragma once
 
 #include <string>
