@@ -69,3 +69,35 @@ TEST_CASE("the one-off sample command builds the same scenario as a file", "[exa
   fs::remove(a);
   fs::remove(b);
 }
+
+TEST_CASE("a scenario report comes in every format", "[examples][cli][formats]") {
+  // JSON parses (Python's json module, a reference parser), Markdown has tables,
+  // LaTeX is plain ASCII with the Unicode symbols as \ensuremath commands (pdflatex-safe).
+  fs::path src(TENSORSIEVE_SOURCE_DIR);
+  auto run = [&](const std::string& fmt) {
+    fs::path out = fs::temp_directory_path() / ("tensorsieve-example." + fmt);
+    std::string cmd = "cd '" + src.string() + "' && '" TENSORSIEVE_BINARY "' run examples/strained-film.toml -f " +
+                      fmt + " -o '" + out.string() + "'";
+    REQUIRE(std::system(cmd.c_str()) == 0);
+    std::string text = slurp(out);
+    fs::remove(out);
+    return text;
+  };
+  std::string json = run("json");
+  fs::path jpath = fs::temp_directory_path() / "tensorsieve-example-check.json";
+  std::ofstream(jpath) << json;
+  std::string check = "python3 -c \"import json,sys; d=json.load(open(sys.argv[1])); "
+                      "assert d['chain'] and d['parts'] and 'switched_on' in d['parts'][0]['changes'][0]\" '" +
+                      jpath.string() + "'";
+  CHECK(std::system(check.c_str()) == 0);
+  fs::remove(jpath);
+  std::string md = run("markdown");
+  CHECK(md.find("| step |") != std::string::npos);
+  CHECK(md.find("switched on") != std::string::npos);
+  std::string tex = run("latex");
+  CHECK(tex.find("\\begin{tabular}") != std::string::npos);
+  CHECK(tex.find("\\ensuremath{\\parallel}") != std::string::npos);
+  bool ascii = true;
+  for (unsigned char c : tex) ascii = ascii && c < 128;
+  CHECK(ascii);
+}

@@ -223,7 +223,7 @@ std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameC
       os << grid({"component", "value"}, rows, Format::text);
     }
     for (const auto& v : views) os << "\n" << v.title << "\n" << grid(v.header, v.rows, Format::text);
-    return os.str();
+    return finish(os.str(), format);
   }
   if (format == Format::markdown) {
     os << "### Allowed form of " << f.spec.name << " in " << g.symbol << "\n\n";
@@ -270,7 +270,7 @@ std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameC
     }
     os << "\\end{pmatrix}\n\\]\n";
   }
-  return os.str();
+  return finish(os.str(), format);
 }
 
 } // namespace ts

@@ -49,7 +49,7 @@ std::string write_group_list(const std::vector<const NamedGroup*>& groups, Forma
   std::ostringstream os;
   os << heading(std::to_string(groups.size()) + " point groups", f);
   os << grid({"symbol", "Schoenflies", "kind", "system", "order", "setting"}, rows, f);
-  return os.str();
+  return finish(os.str(), f);
 }
 
 std::string write_group_description(const NamedGroup& g, bool with_subgroups, const GroupCatalogue& cat, Format f) {
@@ -114,7 +114,7 @@ std::string write_group_description(const NamedGroup& g, bool with_subgroups, co
     }
     os << grid({"subgroup", "order", "index", "operations"}, srows, f);
   }
-  return os.str();
+  return finish(os.str(), f);
 }
 
 std::string write_survey(const TensorSpec& spec, const std::vector<SurveyRow>& rows, Format f) {
@@ -143,7 +143,7 @@ std::string write_survey(const TensorSpec& spec, const std::vector<SurveyRow>& r
                      std::to_string(r.independent), r.independent > 0 ? "allowed" : "forbidden"});
   os << grid({"group", "Schoenflies", "kind", "independent", "verdict"}, table, f);
   os << "\n" << (f == Format::latex ? "% " : "") << "allowed in " << allowed << " of " << rows.size() << " groups\n";
-  return os.str();
+  return finish(os.str(), f);
 }
 
 std::string write_identification(const PointGroup& input, const Identification& id, Format f) {
@@ -173,7 +173,7 @@ std::string write_identification(const PointGroup& input, const Identification& 
   std::string ops;
   for (const auto& o : input.operations()) ops += (ops.empty() ? "" : ", ") + code(o.symbol(input.lattice()), f);
   os << "\noperations: " << ops << "\n";
-  return os.str();
+  return finish(os.str(), f);
 }
 
 } // namespace ts

@@ -55,6 +55,27 @@ std::string latex_escape(const std::string& s) {
   return out;
 }
 
+std::string finish(std::string text, Format f) {
+  if (f != Format::latex) return text;
+  static const std::pair<const char*, const char*> map[] = {
+      {"∥", "\\ensuremath{\\parallel}"}, {"⊥", "\\ensuremath{\\perp}"},   {"×", "\\ensuremath{\\times}"},
+      {"→", "\\ensuremath{\\to}"},       {"·", "\\ensuremath{\\cdot}"},    {"ω", "\\ensuremath{\\omega}"},
+      {"μ", "\\ensuremath{\\mu}"},       {"τ", "\\ensuremath{\\tau}"},     {"θ", "\\ensuremath{\\theta}"},
+      {"φ", "\\ensuremath{\\phi}"},      {"Ω", "\\ensuremath{\\Omega}"},   {"χ", "\\ensuremath{\\chi}"},
+      {"ε", "\\ensuremath{\\epsilon}"},  {"σ", "\\ensuremath{\\sigma}"},   {"ρ", "\\ensuremath{\\rho}"},
+      {"α", "\\ensuremath{\\alpha}"},    {"γ", "\\ensuremath{\\gamma}"},   {"∇", "\\ensuremath{\\nabla}"},
+      {"√", "\\ensuremath{\\surd}"},     {"≥", "\\ensuremath{\\geq}"},     {"≤", "\\ensuremath{\\leq}"},
+      {"±", "\\ensuremath{\\pm}"},       {"′", "'"},                         {"ᵀ", "\\ensuremath{^{T}}"},
+      {"²", "\\ensuremath{^{2}}"},         {"³", "\\ensuremath{^{3}}"},        {"⁰", "\\ensuremath{^{0}}"},
+      {"–", "--"},                           {"—", "---"},                       {"Å", "\\AA{}"},
+      {"…", "\\ldots{}"},                  {"−", "-"}};
+  for (const auto& [from, to] : map) {
+    const std::string a = from, b = to;
+    for (std::size_t p = text.find(a); p != std::string::npos; p = text.find(a, p + b.size())) text.replace(p, a.size(), b);
+  }
+  return text;
+}
+
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows, Format f) {
   std::ostringstream os;
   if (f == Format::latex) {

@@ -18,4 +18,9 @@ std::string grid(const std::vector<std::string>& header, const std::vector<std::
 // Escape &, %, _, #, $ ... for LaTeX text mode.
 std::string latex_escape(const std::string& s);
 
+// The report as the writer produced it, or, for LaTeX, with the Unicode symbols
+// the reports use (∥ ⊥ × → · ω μ ...) replaced by \ensuremath{...} commands, so
+// that the fragment compiles with pdflatex as well as LuaLaTeX.
+std::string finish(std::string text, Format f);
+
 } // namespace ts

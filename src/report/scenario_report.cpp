@@ -223,7 +223,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
          << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
     }
   }
-  return os.str();
+  return finish(os.str(), f);
 }
 
 } // namespace ts

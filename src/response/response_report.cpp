@@ -122,7 +122,7 @@ std::string write_response_list(const std::vector<Response>& responses, Format f
     os << "% tensorsieve: the response catalogue (" << responses.size() << " responses)\n"
        << grid(header, rows, Format::latex);
   }
-  return os.str();
+  return finish(os.str(), f);
 }
 
 std::string write_response(const Response& r, const std::vector<PartForm>& parts, const GroupContext& g,
@@ -183,7 +183,7 @@ std::string write_response(const Response& r, const std::vector<PartForm>& parts
       os << "  verdict:   " << pf.verdict() << "\n\n";
       os << write_form(pf.form, g, fr, Format::text, view);
     }
-    return os.str();
+    return finish(os.str(), f);
   }
 
   if (f == Format::markdown) {
@@ -205,7 +205,7 @@ std::string write_response(const Response& r, const std::vector<PartForm>& parts
       os << "- verdict: **" << pf.verdict() << "**\n\n";
       os << write_form(pf.form, g, fr, Format::markdown, view);
     }
-    return os.str();
+    return finish(os.str(), f);
   }
 
   // LaTeX: a fragment to \input (amsmath; the catalogue text holds Unicode, so
@@ -232,7 +232,7 @@ std::string write_response(const Response& r, const std::vector<PartForm>& parts
     os << "Verdict: " << latex_escape(pf.verdict()) << ".\n\n";
     os << write_form(pf.form, g, fr, Format::latex, view);
   }
-  return os.str();
+  return finish(os.str(), f);
 }
 
 } // namespace ts
