@@ -285,11 +285,15 @@ void GroupCatalogue::derive_magnetic_groups() {
     Candidate plain;
     plain.g = {c.name, "", c.type, c.type, c.schoenflies, MagneticKind::colourless, &c, c.group};
     plain.alias_symbols = with_aliases(c.name, false);
+    // The full Hermann-Mauguin symbol names the colourless and the grey group too.
+    const std::string full = normalise_group_symbol(c.full);
+    if (full != c.name) plain.alias_symbols.push_back(full);
     cands.push_back(plain);
     Candidate grey;
     grey.g = {c.name + "1'", "", c.type, c.type, c.schoenflies + "1'", MagneticKind::grey, &c,
               c.group.with_time_reversal()};
     grey.alias_symbols = with_aliases(c.name, true);
+    if (full != c.name) grey.alias_symbols.push_back(full + "1'");
     cands.push_back(grey);
     for (const auto& H : c.group.subgroups()) {
       if (2 * H.order() != c.group.order()) continue;
