@@ -210,3 +210,30 @@ TEST_CASE("scenario files: bad input is named with file, line and what is valid"
   CHECK(r.code == 2);
   for (const auto& p : {broken, kind, plane, metric, unknown}) fs::remove(p);
 }
+
+TEST_CASE("hexagonal films: Miller-Bravais cuts and the c/a metric", "[scenario][cut][hexagonal]") {
+  // A wurtzite-type 6mm crystal (common practice): the c-plane (0001) keeps 6mm; an a-plane (11-20)
+  // or r-plane (10-12) film keeps only the mirror that contains c and the normal. The r-plane normal
+  // depends on c/a, so without lattice parameters it is refused.
+  Scenario s = basic("6mm");
+  s.cut = "(0001)";
+  ScenarioResult r = run_scenario(s);
+  CHECK(r.chain.back().sample_symbol == "6mm1'");
+  s.cut = "(11-20)";
+  r = run_scenario(s);
+  CHECK(final_type(r) == "m1'");
+  CHECK(r.frame_labels[0] == "[001]"); // the default x is the c axis, in the a-plane
+  CHECK(r.chain.back().sample_symbol == "m1'");
+  s.cut = "(10-12)";
+  CHECK_THROWS_AS(run_scenario(s), Error);
+  s.metric.a = Rational(325, 100);
+  s.metric.c = Rational(521, 100);
+  r = run_scenario(s);
+  CHECK(final_type(r) == "m1'");
+  // The in-plane direction [1-100] (Miller-Bravais) of the a-plane film, written in four indices.
+  s = basic("6mm");
+  s.cut = "(11-20)";
+  s.x = "[1-100]";
+  r = run_scenario(s);
+  CHECK(r.frame_labels[0] == "[1-10]");
+}
