@@ -1,7 +1,7 @@
 #!/usr/bin/env python3
 """Check (or refresh) the worked examples in the docs against the real binary.
 
-Every fenced block marked ```console in the given Markdown files is a transcript:
+Every fenced block marked ```console in the given Markdown files records a shell session:
 lines starting with "$ " are commands, the lines after each one (up to the next
 command or the end of the block) are what it printed, standard output and
 standard error together. "$ echo $?" prints the exit status of the command before.

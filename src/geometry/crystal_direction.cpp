@@ -7,18 +7,12 @@
 
 namespace ts {
 
-LatticeDirection parse_direction(const std::string& raw, const std::string& where) {
-  const std::string valid = "a direction in square brackets: [uvw] such as [1-10], [1,-1,0], or [uvtw] for hexagonal axes";
-  std::string text;
-  for (char c : raw)
-    if (c != ' ') text += c;
-  if (text.size() < 2 || text.front() != '[' || text.back() != ']')
-    fail(ErrorKind::bad_geometry, "'" + raw + "' is not a direction", where, valid);
-  std::string body = text.substr(1, text.size() - 2);
+std::vector<long> parse_miller_indices(const std::string& body, const std::string& raw, const std::string& where,
+                                       const std::string& valid) {
   bool commas = body.find(',') != std::string::npos;
   std::vector<long> idx;
   for (std::size_t i = 0; i < body.size();) {
-    if (body[i] == ',') {
+    if (body[i] == ',' || body[i] == ' ') {
       ++i;
       continue;
     }
@@ -28,7 +22,8 @@ LatticeDirection parse_direction(const std::string& raw, const std::string& wher
       ++i;
     }
     if (i >= body.size() || !std::isdigit(static_cast<unsigned char>(body[i])))
-      fail(ErrorKind::bad_geometry, "'" + raw + "': expected a digit at character " + std::to_string(i + 2), where, valid);
+      fail(ErrorKind::bad_geometry, "'" + raw + "': expected a digit at character " + std::to_string(i + 2), where,
+           valid);
     long v = 0;
     do {
       v = v * 10 + (body[i] - '0');
@@ -36,6 +31,18 @@ LatticeDirection parse_direction(const std::string& raw, const std::string& wher
     } while (commas && i < body.size() && std::isdigit(static_cast<unsigned char>(body[i])));
     idx.push_back(sign * v);
   }
+  return idx;
+}
+
+LatticeDirection parse_direction(const std::string& raw, const std::string& where) {
+  const std::string valid = "a direction in square brackets: [uvw] such as [1-10], [1,-1,0], or [uvtw] for hexagonal axes";
+  std::string text;
+  for (char c : raw)
+    if (c != ' ') text += c;
+  if (text.size() < 2 || text.front() != '[' || text.back() != ']')
+    fail(ErrorKind::bad_geometry, "'" + raw + "' is not a direction", where, valid);
+  std::string body = text.substr(1, text.size() - 2);
+  std::vector<long> idx = parse_miller_indices(body, raw, where, valid);
   LatticeDirection d;
   if (idx.size() == 4) {
     if (idx[2] != -(idx[0] + idx[1]))

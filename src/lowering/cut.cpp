@@ -32,32 +32,6 @@ namespace {
 
 const char* cut_help = "a plane (hkl) such as (110), (11-20) for hexagonal axes, or a direction [uvw] such as [111]";
 
-// Parse the integers of "(1-10)", "(1,-1,0)", "(11-20)".
-std::vector<long> indices(const std::string& body, const std::string& raw, const std::string& where) {
-  bool commas = body.find(',') != std::string::npos;
-  std::vector<long> idx;
-  for (std::size_t i = 0; i < body.size();) {
-    if (body[i] == ',' || body[i] == ' ') {
-      ++i;
-      continue;
-    }
-    long sign = 1;
-    if (body[i] == '-') {
-      sign = -1;
-      ++i;
-    }
-    if (i >= body.size() || !std::isdigit(static_cast<unsigned char>(body[i])))
-      fail(ErrorKind::bad_geometry, "'" + raw + "': expected a digit", where, cut_help);
-    long v = 0;
-    do {
-      v = v * 10 + (body[i] - '0');
-      ++i;
-    } while (commas && i < body.size() && std::isdigit(static_cast<unsigned char>(body[i])));
-    idx.push_back(sign * v);
-  }
-  return idx;
-}
-
 bool needs_metric(const std::array<long, 3>& v, const std::string& system) {
   int nonzero_ab = (v[0] != 0) + (v[1] != 0);
   if (system == "cubic") return false;
@@ -112,7 +86,7 @@ CutNormal parse_cut(const std::string& raw, const std::string& system, LatticeKi
   }
   if (text.size() < 2 || text.front() != '(' || text.back() != ')')
     fail(ErrorKind::bad_geometry, "'" + raw + "' is not a cut", where, cut_help);
-  std::vector<long> idx = indices(text.substr(1, text.size() - 2), raw, where);
+  std::vector<long> idx = parse_miller_indices(text.substr(1, text.size() - 2), raw, where, cut_help);
   std::array<long, 3> hkl{};
   if (idx.size() == 4) {
     if (lattice != LatticeKind::hexagonal)

@@ -55,6 +55,12 @@ std::string latex_escape(const std::string& s) {
   return out;
 }
 
+std::string inline_code(const std::string& s, Format f) {
+  if (f == Format::markdown) return "`" + s + "`";
+  if (f == Format::latex) return "\\texttt{" + latex_escape(s) + "}";
+  return s;
+}
+
 std::string finish(std::string text, Format f) {
   if (f != Format::latex) return text;
   static const std::pair<const char*, const char*> map[] = {

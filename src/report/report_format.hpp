@@ -15,6 +15,9 @@ const char* format_name(Format f);
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
                  Format f);
 
+// A symbol or command set in code type: `x` in Markdown, \texttt{x} in LaTeX, plain in text.
+std::string inline_code(const std::string& s, Format f);
+
 // Escape &, %, _, #, $ ... for LaTeX text mode.
 std::string latex_escape(const std::string& s);
 

@@ -10,11 +10,7 @@ namespace ts {
 
 namespace {
 
-std::string code(const std::string& s, Format f) {
-  if (f == Format::markdown) return "`" + s + "`";
-  if (f == Format::latex) return "\\texttt{" + latex_escape(s) + "}";
-  return s;
-}
+std::string code(const std::string& s, Format f) { return inline_code(s, f); }
 
 std::string heading(const std::string& s, Format f, int level = 2) {
   if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
