@@ -237,3 +237,39 @@ TEST_CASE("hexagonal films: Miller-Bravais cuts and the c/a metric", "[scenario]
   r = run_scenario(s);
   CHECK(r.frame_labels[0] == "[1-10]");
 }
+
+TEST_CASE("cut x distortion table of a cubic perovskite", "[scenario][cut][table]") {
+  // Interface groups of one domain variant on (001), (110), (111): stabiliser of the normal within the
+  // distorted group (common practice: site-symmetry reasoning; the table of physics-spec.md §2(a)).
+  // Each entry: type and the normals of the mirrors that remain.
+  struct Row {
+    LoweringKind kind;
+    const char* along;
+    const char* expected[3];
+  };
+  const Row rows[] = {
+      {LoweringKind::strain, "[001]", {"4mm [100] [110] [1-10] [010]", "mm2 [1-10] [001]", "m [1-10]"}},
+      {LoweringKind::strain, "[100]", {"mm2 [100] [010]", "m [001]", "m [01-1]"}},
+      {LoweringKind::polar, "[001]", {"4mm [100] [110] [1-10] [010]", "m [1-10]", "m [1-10]"}},
+      {LoweringKind::polar, "[100]", {"m [010]", "m [001]", "m [01-1]"}},
+      {LoweringKind::polar, "[110]", {"m [1-10]", "mm2 [1-10] [001]", "m [1-10]"}},
+      {LoweringKind::polar, "[1-10]", {"m [110]", "m [001]", "1"}},
+      {LoweringKind::polar, "[111]", {"m [1-10]", "m [1-10]", "3m [10-1] [1-10] [01-1]"}},
+  };
+  const char* cuts[3] = {"(001)", "(110)", "(111)"};
+  for (const auto& row : rows)
+    for (int c = 0; c < 3; ++c) {
+      Scenario s = basic("m-3m");
+      s.assume_nonmagnetic = false;
+      s.cut = cuts[c];
+      s.steps = {step(row.kind, row.along)};
+      ScenarioResult r = run_scenario(s);
+      std::string got = final_type(r);
+      for (const auto& op : r.chain.back().group.operations()) {
+        std::string sym = op.symbol(LatticeKind::orthogonal);
+        if (sym.rfind("m ", 0) == 0) got += " " + sym.substr(2);
+      }
+      INFO(lowering_kind_name(row.kind) << " " << row.along << " on " << cuts[c]);
+      CHECK(got == row.expected[c]);
+    }
+}
