@@ -1,9 +1,16 @@
 #include "bench_clock.hpp"
 
+#include "core/error.hpp"
+
+#include <poll.h>
+#include <signal.h>
 #include <sys/resource.h>
+#include <sys/wait.h>
+#include <unistd.h>
 
 #include <algorithm>
 #include <cstdio>
+#include <sstream>
 
 namespace ts::bench {
 
@@ -36,6 +43,84 @@ double peak_memory_mib() {
   rusage u{};
   getrusage(RUSAGE_SELF, &u);
   return static_cast<double>(u.ru_maxrss) / 1024.0; // Linux reports KiB
+}
+
+double peak_memory_children_mib() {
+  rusage u{};
+  getrusage(RUSAGE_CHILDREN, &u);
+  return static_cast<double>(u.ru_maxrss) / 1024.0;
+}
+
+ProbeOutcome run_in_child(int repeats, double timeout, const std::function<int()>& job) {
+  ProbeOutcome out;
+  int fd[2];
+  if (pipe(fd) != 0) fail(ErrorKind::internal, "pipe() failed for a benchmark probe");
+  std::fflush(stdout);
+  std::fflush(stderr);
+  pid_t pid = fork();
+  if (pid < 0) fail(ErrorKind::internal, "fork() failed for a benchmark probe");
+  if (pid == 0) {
+    close(fd[0]);
+    std::string line;
+    try {
+      int independent = -1;
+      Timing t = time_repeated(repeats, [&] { independent = job(); });
+      char buf[64];
+      std::snprintf(buf, sizeof buf, "ok %.9g %d", t.median, independent);
+      line = buf;
+    } catch (const std::exception& e) {
+      const auto* te = dynamic_cast<const Error*>(&e);
+      line = std::string("error ") + (te ? te->problem() : e.what());
+    }
+    for (std::size_t done = 0; done < line.size();) {
+      ssize_t n = write(fd[1], line.data() + done, line.size() - done);
+      if (n <= 0) break;
+      done += static_cast<std::size_t>(n);
+    }
+    close(fd[1]);
+    _exit(0);
+  }
+  close(fd[1]);
+  std::string text;
+  const auto deadline = Clock::now() + std::chrono::duration<double>(timeout);
+  bool eof = false;
+  while (!eof) {
+    auto left = std::chrono::duration_cast<std::chrono::milliseconds>(deadline - Clock::now()).count();
+    if (left <= 0) break;
+    pollfd p{fd[0], POLLIN, 0};
+    int r = poll(&p, 1, static_cast<int>(std::min<long long>(left, 1000)));
+    if (r < 0) break;
+    if (r == 0) continue;
+    char buf[512];
+    ssize_t n = read(fd[0], buf, sizeof buf);
+    if (n <= 0) eof = true;
+    else text.append(buf, static_cast<std::size_t>(n));
+  }
+  close(fd[0]);
+  int status = 0;
+  if (!eof) {
+    kill(pid, SIGKILL);
+    waitpid(pid, &status, 0);
+    out.status = ProbeOutcome::timed_out;
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "stopped after %g s", timeout);
+    out.message = buf;
+    return out;
+  }
+  waitpid(pid, &status, 0);
+  std::istringstream in(text);
+  std::string word;
+  in >> word;
+  if (word == "ok" && (in >> out.median >> out.independent)) {
+    out.status = ProbeOutcome::ok;
+  } else if (word == "error") {
+    std::getline(in, out.message);
+    if (!out.message.empty() && out.message[0] == ' ') out.message.erase(0, 1);
+  } else {
+    out.message = WIFSIGNALED(status) ? "the probe process died of signal " + std::to_string(WTERMSIG(status))
+                                      : "the probe process gave no result";
+  }
+  return out;
 }
 
 std::string duration_text(double s) {

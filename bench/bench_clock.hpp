@@ -24,8 +24,22 @@ Timing time_repeated(int repeats, const std::function<void()>& job);
 
 double median_of(std::vector<double> v);
 
-// Peak resident set size of this process in MiB (getrusage ru_maxrss).
+// What became of a job run in a child process.
+struct ProbeOutcome {
+  enum Status { ok, failed, timed_out } status = failed;
+  double median = 0;     // seconds, when ok
+  int independent = -1;  // the job's result, when ok
+  std::string message;   // why not, otherwise
+};
+// Run job `repeats` times in a forked child and report its median. A job that
+// outlives `timeout` seconds is killed, so one runaway path cannot hide the
+// figures after it. job returns the number of independent components.
+ProbeOutcome run_in_child(int repeats, double timeout, const std::function<int()>& job);
+
+// Peak resident set size in MiB (getrusage ru_maxrss): of this process, and of
+// the largest child that has been waited for.
 double peak_memory_mib();
+double peak_memory_children_mib();
 
 // "12.34 ms", "567.8 us", "1.234 s": three or four significant figures.
 std::string duration_text(double seconds);
