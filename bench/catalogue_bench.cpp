@@ -302,7 +302,7 @@ int run(const Args& args) {
       fail(ErrorKind::internal, "the turned m-3m was expected to need elimination");
     for (const char* s : {"[[V2]2]", "V4", "V6"}) {
       TensorSpec spec = parse_tensor_spec(s);
-      time_probe_form(R, args.probe_timeout, "elimination: " + std::string(s) + " in m-3m turned 30 deg about z",
+      time_probe_form(R, args.probe_timeout, "rotated setting: " + std::string(s) + " in m-3m turned 30 deg about z",
                       spec, [&] { return allowed_form(spec, fresh(turned)); });
     }
     // 6/mmm with its 6-fold along x, as a structure whose c axis lies along x
@@ -314,7 +314,7 @@ int run(const Args& args) {
     const PointGroup sideways = cat->get("6/mmm").group.conjugated(P);
     for (const char* s : {"[[V2]2]", "V4", "V6"}) {
       TensorSpec spec = parse_tensor_spec(s);
-      time_probe_form(R, args.probe_timeout, "elimination: " + std::string(s) + " in 6/mmm with the 6-fold along x",
+      time_probe_form(R, args.probe_timeout, "rotated setting: " + std::string(s) + " in 6/mmm with the 6-fold along x",
                       spec, [&] { return allowed_form(spec, fresh(sideways)); });
     }
     // A sample frame z ∥ [111], x ∥ [1-10]: components become surds (√2, √6).

@@ -2,6 +2,7 @@
 
 #include "core/big_qsqrt3.hpp"
 #include "core/error.hpp"
+#include "group/identify.hpp"
 
 #include <algorithm>
 #include <map>
@@ -471,22 +472,70 @@ SolverPath solver_path(const PointGroup& group) {
   return SolverPath::general_elimination;
 }
 
-AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group) {
-  auto sym = std::make_shared<const IndexSymmetry>(spec);
-  return build_form(spec, sym, invariant_rows(spec, *sym, group), {Rational(1), Rational(1), Rational(1)});
+namespace {
+
+// A group that is monomial in no basis we know is usually a tabulated group
+// seen in a rotated frame. When identify() finds exact standard axes of equal
+// length (rescaled where the ratio of lengths is an exact square), the tensor
+// is solved in the standard setting by orbits and rotated back exactly,
+// instead of by elimination, which is slow for large tensors.
+struct StandardRoute {
+  const PointGroup* standard = nullptr;
+  Mat3 M; // rows: standard axes in the group's frame, all of squared length N
+};
+
+std::optional<StandardRoute> standard_route(const PointGroup& group) {
+  if (solver_path(group) != SolverPath::general_elimination) return std::nullopt;
+  Identification id;
+  try {
+    id = identify(group, GroupCatalogue::builtin());
+  } catch (const Error&) {
+    return std::nullopt;
+  }
+  std::array<Vec3, 3> r = id.standard_axes;
+  Rational n0 = dot(r[0], r[0]).rational_part();
+  for (int j = 1; j < 3; ++j) {
+    QSqrt3 nj = dot(r[j], r[j]);
+    if (!nj.is_rational()) return std::nullopt;
+    QSqrt3 scale;
+    if (!exact_sqrt_of_rational(n0 / nj.rational_part(), &scale)) return std::nullopt;
+    r[j] = scaled(r[j], scale);
+  }
+  StandardRoute route;
+  route.standard = &id.type->group;
+  for (int i = 0; i < 3; ++i) route.M.m[i] = r[i];
+  return route;
 }
 
-AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group, const Frame& frame) {
-  if (frame.is_identity()) return allowed_form(spec, group);
-  frame.validate();
+// The frame axes (given in the group's frame) seen from the standard setting: M·a.
+Frame through(const StandardRoute& route, const Frame& frame) {
+  Frame f = frame;
+  for (int k = 0; k < 3; ++k) f.axes[k] = route.M * frame.axes[k];
+  return f;
+}
+
+AllowedForm solve_in_frame(const TensorSpec& spec, const PointGroup& group, const Frame& frame) {
   auto sym = std::make_shared<const IndexSymmetry>(spec);
+  if (frame.is_identity())
+    return build_form(spec, sym, invariant_rows(spec, *sym, group), {Rational(1), Rational(1), Rational(1)});
   std::vector<Row> rows = rotate_rows(*sym, invariant_rows(spec, *sym, group), frame);
   std::array<Rational, 3> len2;
   for (int i = 0; i < 3; ++i) len2[i] = dot(frame.axes[i], frame.axes[i]).rational_part();
   return build_form(spec, sym, std::move(rows), len2);
 }
 
+} // namespace
+
+AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group) { return allowed_form(spec, group, Frame{}); }
+
+AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group, const Frame& frame) {
+  if (!frame.is_identity()) frame.validate();
+  if (auto route = standard_route(group)) return solve_in_frame(spec, *route->standard, through(*route, frame));
+  return solve_in_frame(spec, group, frame);
+}
+
 int independent_count(const TensorSpec& spec, const PointGroup& group) {
+  if (auto route = standard_route(group)) return independent_count(spec, *route->standard);
   IndexSymmetry sym(spec);
   std::vector<Row> rows = invariant_rows(spec, sym, group);
   return static_cast<int>(rref_blocks(rows, sym.size()).size());
