@@ -343,6 +343,14 @@ std::vector<std::pair<std::string, PointGroup>> oblique_groups() {
   g.emplace_back("2' (3,4,0)/5", closed({e, {two, true}}));
   g.emplace_back("2/m (3,4,0)/5", closed({e, {two, false}, {m, false}, {inv, false}}));
   g.emplace_back("2'/m (3,4,0)/5", closed({e, {two, true}, {m, false}, {inv, true}}));
+  // A mirror with normal (1,2,0)/√5: its standard axes cannot be given equal exact
+  // lengths (5 against 1), so the solver really eliminates here instead of rotating
+  // from the standard setting.
+  const Mat3 m120 = mat({{QSqrt3(Rational(3, 5)), QSqrt3(Rational(-4, 5)), 0},
+                         {QSqrt3(Rational(-4, 5)), QSqrt3(Rational(-3, 5)), 0},
+                         {0, 0, 1}});
+  g.emplace_back("m (1,2,0)", closed({e, {m120, false}}));
+  g.emplace_back("2/m (1,2,0)", closed({e, {m120.scaled(QSqrt3(-1)), false}, {m120, false}, {inv, false}}));
   return g;
 }
 
