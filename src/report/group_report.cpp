@@ -16,9 +16,9 @@ std::string heading(const std::string& s, Format f) {
   return s + "\n";
 }
 
-std::string direction_of(const Vec3& v) {
+std::string direction_of(const Vec3& v, LatticeKind lattice) {
   std::array<long, 3> uvw{};
-  if (cartesian_to_lattice_direction(v, LatticeKind::orthogonal, &uvw)) return direction_str(uvw);
+  if (cartesian_to_lattice_direction(v, lattice, &uvw)) return direction_str(uvw);
   return vec_str(v);
 }
 
@@ -144,7 +144,7 @@ std::string write_survey(const TensorSpec& spec, const std::vector<SurveyRow>& r
 
 std::string write_identification(const PointGroup& input, const Identification& id, Format f) {
   std::string axes[3];
-  for (int i = 0; i < 3; ++i) axes[i] = direction_of(id.standard_axes[i]);
+  for (int i = 0; i < 3; ++i) axes[i] = direction_of(id.standard_axes[i], input.lattice());
   if (f == Format::json) {
     toml::array ops;
     for (const auto& o : input.operations()) ops.push_back(o.symbol(input.lattice()));
@@ -164,7 +164,7 @@ std::string write_identification(const PointGroup& input, const Identification& 
       {"order", std::to_string(input.order())},
       {"tabulated setting", id.same_setting ? code(id.same_setting->symbol, f) : "none (a rotated setting)"},
       {"standard setting", "x_std ∥ " + axes[0] + ", y_std ∥ " + axes[1] + ", z_std ∥ " + axes[2] +
-                               " (input Cartesian frame)"}};
+                               (input.lattice() == LatticeKind::hexagonal ? " (hexagonal axes of the input)" : " (input axes)")}};
   os << grid({"property", "value"}, rows, f);
   std::string ops;
   for (const auto& o : input.operations()) ops += (ops.empty() ? "" : ", ") + code(o.symbol(input.lattice()), f);
