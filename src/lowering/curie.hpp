@@ -24,7 +24,6 @@ struct ImposedQuantity {
   QuantityKind kind;
   Vec3 direction;                 // for vectors and lines
   Mat3 tensor = Mat3::identity(); // for strain
-  std::string label;              // for reports: "moment ∥ [001]"
 };
 
 // The stabiliser of one quantity within g.

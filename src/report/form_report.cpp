@@ -10,7 +10,6 @@ namespace ts {
 
 namespace {
 
-const char* voigt_pair[6] = {"xx", "yy", "zz", "yz", "xz", "xy"};
 const int voigt_digits[6][2] = {{0, 0}, {1, 1}, {2, 2}, {1, 2}, {0, 2}, {0, 1}};
 
 int code3(int a, int b, int c) { return (a * 3 + b) * 3 + c; }
@@ -106,7 +105,6 @@ std::vector<ViewGrid> views_of(const AllowedForm& f, View view, TextStyle style)
     }
     out.push_back(g);
   }
-  (void)voigt_pair;
   return out;
 }
 
@@ -275,20 +273,3 @@ std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameC
 
 } // namespace ts
 
-#include "group/identify.hpp"
-
-namespace ts {
-
-GroupContext GroupContext::of(const PointGroup& g, const std::string& label, const GroupCatalogue& cat) {
-  Identification id = identify(g, cat);
-  GroupContext c = of(id.same_setting ? *id.same_setting : *id.type);
-  c.operations.clear();
-  for (const auto& op : g.operations()) c.operations.push_back(op.symbol(g.lattice()));
-  c.order = g.order();
-  if (!id.same_setting) c.setting = "a setting of " + id.type->symbol + " (see the operations)";
-  if (!label.empty()) c.symbol = label;
-  else if (!id.same_setting) c.symbol = id.type->symbol + " (non-standard setting)";
-  return c;
-}
-
-} // namespace ts

@@ -20,7 +20,6 @@ struct GroupContext {
   std::size_t order = 0;
   std::vector<std::string> operations; // symbols in the group's lattice basis
   static GroupContext of(const NamedGroup& g);
-  static GroupContext of(const PointGroup& g, const std::string& label, const GroupCatalogue& cat);
 };
 
 struct FrameContext {

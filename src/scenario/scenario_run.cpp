@@ -208,16 +208,16 @@ PointGroup lower(const PointGroup& g, const LoweringStep& s, const std::string& 
   auto dir = [&](const std::string& t) { return step_direction(t, system, g.lattice(), m, s.where); };
   auto vec = [&](QuantityKind k) {
     *quantity = quantity_kind_name(k);
-    return stabiliser(g, {k, dir(s.along), Mat3::identity(), ""});
+    return stabiliser(g, {k, dir(s.along), Mat3::identity()});
   };
   switch (s.kind) {
   case LoweringKind::strain:
     *quantity = quantity_kind_name(QuantityKind::strain);
-    return stabiliser(g, {QuantityKind::strain, {}, uniaxial_strain(dir(s.along)), ""});
+    return stabiliser(g, {QuantityKind::strain, {}, uniaxial_strain(dir(s.along))});
   case LoweringKind::shear: {
     Vec3 a = dir(s.along), b = dir(s.second);
     *quantity = quantity_kind_name(QuantityKind::strain);
-    return stabiliser(g, {QuantityKind::strain, {}, shear_strain(a, b), ""});
+    return stabiliser(g, {QuantityKind::strain, {}, shear_strain(a, b)});
   }
   case LoweringKind::polar:
   case LoweringKind::electric_field: return vec(QuantityKind::polar_even);
@@ -310,7 +310,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
     QuantityKind k = sc.equivalent_faces ? QuantityKind::line : QuantityKind::polar_even;
     push("cut " + sc.cut + (sc.equivalent_faces ? ", slab with equivalent faces" : ", surface or interface"),
          sc.equivalent_faces ? "unoriented normal (both faces alike)" : "polar normal (film side differs from substrate side)",
-         stabiliser(parent.group, {k, normal, Mat3::identity(), ""}));
+         stabiliser(parent.group, {k, normal, Mat3::identity()}));
   }
   for (const auto& s : sc.steps) {
     std::string quantity;
