@@ -218,7 +218,7 @@ TEST_CASE("cli: a 2-fold axis along [210] with a 4-fold along [001] is rejected"
 }
 
 TEST_CASE("cli: a frame direction that is not perpendicular exits 7", "[cli]") {
-  const CliResult r = run_cli({"form", "4mm", "V", "--z", "[001]", "--x", "[101]"});
+  const CliResult r = run_cli({"form", "m-3m", "V", "--z", "[001]", "--x", "[101]"});
   check_failure(r, ErrorKind::bad_geometry);
   CHECK_THAT(r.err, Catch::Contains("[101]"));
   CHECK_THAT(r.err, Catch::Contains("[001]"));
@@ -253,7 +253,7 @@ TEST_CASE("cli: a failing command leaves no --output file, whole or partial", "[
       {{"form", "4nm", "V"}, ErrorKind::unknown_name},
       {{"form", "4mm", "V[V2"}, ErrorKind::bad_spec},
       {{"form", "4mm", "d_ijklmno"}, ErrorKind::too_large},
-      {{"form", "4mm", "V", "--z", "[001]", "--x", "[101]"}, ErrorKind::bad_geometry},
+      {{"form", "m-3m", "V", "--z", "[001]", "--x", "[101]"}, ErrorKind::bad_geometry},
       {{"form", "4mm", "V", "-f", "yaml"}, ErrorKind::usage},
       {{"identify", "3+ [001]", "4+ [001]"}, ErrorKind::bad_group},
       {{"survey", "d_ijk: polor"}, ErrorKind::bad_spec},

@@ -13,14 +13,14 @@ namespace ts::cli {
 void setup_form(CLI::App& app) {
   struct Opts {
     OutputOptions out;
-    std::string group, spec, view = "auto", z, x;
+    std::string group, spec, view = "auto";
+    FrameOptions frame;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("form", "the symmetry-allowed form of a tensor in a point group");
   cmd->add_option("group", o->group, "point group symbol, e.g. 4mm, -3'm', m'm2'")->required();
   cmd->add_option("spec", o->spec, "tensor: Jahn symbol (V[V2]) or index spec (\"d_ijk: polar, sym(jk)\")")->required();
-  cmd->add_option("--z", o->z, "report components in a frame with z along this crystal direction, e.g. [110]");
-  cmd->add_option("--x", o->x, "x axis of that frame (perpendicular to z), e.g. [001]");
+  add_frame_options(*cmd, o->frame);
   cmd->add_option("--view", o->view, "auto, components, matrix, dmatrix or voigt")->capture_default_str();
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
@@ -30,7 +30,7 @@ void setup_form(CLI::App& app) {
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);
     FrameContext fc;
-    Frame frame = frame_from_options(o->z, o->x, g.group.lattice(), &fc);
+    Frame frame = frame_from_options(o->frame, g, &fc);
     AllowedForm form = allowed_form(spec, g.group, frame);
     emit(o->out, write_form(form, GroupContext::of(g), fc, format, view));
   });

@@ -25,15 +25,15 @@ void setup_response_list(CLI::App& app) {
 void setup_response_form(CLI::App& app) {
   struct Opts {
     OutputOptions out;
-    std::string id, group, view = "auto", z, x;
+    std::string id, group, view = "auto";
+    FrameOptions frame;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("response", "describe a physical response and its allowed form in a point group");
   cmd->add_option("id", o->id, "response id or alias, e.g. anomalous-hall, shg, bcd (`tensorsieve responses`)")
       ->required();
   cmd->add_option("group", o->group, "point group symbol, e.g. 4mm1', 4m'm', -3'm'")->required();
-  cmd->add_option("--z", o->z, "report components in a frame with z along this crystal direction, e.g. [111]");
-  cmd->add_option("--x", o->x, "x axis of that frame (perpendicular to z), e.g. [1-10]");
+  add_frame_options(*cmd, o->frame);
   cmd->add_option("--view", o->view, "auto, components, matrix, dmatrix or voigt")->capture_default_str();
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
@@ -42,7 +42,7 @@ void setup_response_form(CLI::App& app) {
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);
     FrameContext fc;
-    Frame frame = frame_from_options(o->z, o->x, g.group.lattice(), &fc);
+    Frame frame = frame_from_options(o->frame, g, &fc);
     emit(o->out, write_response(r, response_forms(r, g.group, frame), GroupContext::of(g), fc, format, view));
   });
 }

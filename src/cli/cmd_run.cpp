@@ -1,5 +1,6 @@
 // tensorsieve run SCENARIO.toml | sample GROUP --cut ... --lower KIND:VALUE ...
 #include "cli/commands.hpp"
+#include "cli/frame_options.hpp"
 #include "core/error.hpp"
 #include "report/scenario_report.hpp"
 
@@ -54,21 +55,7 @@ void setup_sample(CLI::App& app) {
     sc.assume_nonmagnetic = !o->colourless;
     for (std::size_t i = 0; i < o->lowerings.size(); ++i)
       sc.steps.push_back(parse_lowering_option(o->lowerings[i], "--lower " + o->lowerings[i]));
-    auto length = [](const std::string& s, const char* name) -> std::optional<Rational> {
-      if (s.empty()) return std::nullopt;
-      try {
-        double v = std::stod(s);
-        if (v > 0) return exact_decimal(v);
-      } catch (const std::exception&) {
-      }
-      fail(ErrorKind::usage, std::string("lattice parameter ") + name + " = '" + s + "' is not a positive number",
-           std::string("--") + name, "a length such as 3.905");
-    };
-    sc.metric.a = length(o->a, "a");
-    sc.metric.b = length(o->b, "b");
-    sc.metric.c = length(o->c, "c");
-    if (!sc.metric.a && (sc.metric.b || sc.metric.c))
-      fail(ErrorKind::usage, "give a together with b or c", "--a", "--a 3.9 --c 4.1");
+    sc.metric = metric_option({"", "", o->a, o->b, o->c});
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");

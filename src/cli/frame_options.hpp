@@ -1,21 +1,71 @@
-// The --z/--x options shared by `form` and `response`: both or neither.
+// The frame options shared by `form` and `response`: --z and --x (both or
+// neither) and the lattice parameters that oblique directions need.
 #pragma once
 
 #include "core/error.hpp"
-#include "geometry/sample_frame.hpp"
+#include "group/group_catalogue.hpp"
+#include "lowering/cut.hpp"
 #include "report/form_report.hpp"
+
+#include <CLI/CLI.hpp>
 
 #include <string>
 
 namespace ts::cli {
 
-inline Frame frame_from_options(const std::string& z, const std::string& x, LatticeKind lattice, FrameContext* fc) {
-  if (z.empty() && x.empty()) {
+struct FrameOptions {
+  std::string z, x, a, b, c;
+};
+
+inline void add_frame_options(CLI::App& cmd, FrameOptions& o) {
+  cmd.add_option("--z", o.z, "report components in a frame with z along this crystal direction, e.g. [110]");
+  cmd.add_option("--x", o.x, "x axis of that frame (perpendicular to z), e.g. [001]");
+  cmd.add_option("--a", o.a, "lattice parameter a (needed where a direction depends on axis ratios)");
+  cmd.add_option("--b", o.b, "lattice parameter b");
+  cmd.add_option("--c", o.c, "lattice parameter c");
+}
+
+inline std::optional<Rational> length_option(const std::string& s, const char* name) {
+  if (s.empty()) return std::nullopt;
+  try {
+    double v = std::stod(s);
+    if (v > 0) return exact_decimal(v);
+  } catch (const std::exception&) {
+  }
+  fail(ErrorKind::usage, std::string("lattice parameter ") + name + " = '" + s + "' is not a positive number",
+       std::string("--") + name, "a length such as 3.905");
+}
+
+inline LatticeMetric metric_option(const FrameOptions& o) {
+  LatticeMetric m;
+  m.a = length_option(o.a, "a");
+  m.b = length_option(o.b, "b");
+  m.c = length_option(o.c, "c");
+  if (!m.a && (m.b || m.c)) fail(ErrorKind::usage, "give a together with b or c", "--a", "--a 3.9 --c 4.1");
+  return m;
+}
+
+// The frame x, y = z × x, z in the group's crystal axes, with the metric applied to
+// the directions: [110] of an orthorhombic crystal is a + b, not the Cartesian (1,1,0).
+inline Frame frame_from_options(const FrameOptions& o, const NamedGroup& g, FrameContext* fc) {
+  const LatticeKind lattice = g.group.lattice();
+  if (o.z.empty() && o.x.empty()) {
     if (lattice == LatticeKind::hexagonal) fc->axes = {"[100]", "[120]", "[001]"};
     return Frame{};
   }
-  if (z.empty() || x.empty()) fail(ErrorKind::usage, "a frame needs both --z and --x", "--z/--x", "--z [110] --x [001]");
-  Frame frame = frame_from_directions(z, x, lattice, "--z/--x");
+  if (o.z.empty() || o.x.empty())
+    fail(ErrorKind::usage, "a frame needs both --z and --x", "--z/--x", "--z [110] --x [001]");
+  const LatticeMetric m = metric_option(o);
+  const std::string& system = g.crystal->system;
+  LatticeDirection dz = parse_direction(o.z, "--z"), dx = parse_direction(o.x, "--x");
+  Vec3 z = metric_direction(dz, system, lattice, m, "--z"), x = metric_direction(dx, system, lattice, m, "--x");
+  if (!dot(z, x).is_zero())
+    fail(ErrorKind::bad_geometry, "x " + dx.text + " is not perpendicular to z " + dz.text, "--z/--x",
+         "an x direction in the plane perpendicular to z");
+  Frame frame;
+  frame.axes = {x, cross(z, x), z};
+  frame.labels = {dx.text, lattice_direction_label(frame.axes[1], lattice, m), dz.text};
+  frame.validate();
   fc->axes = frame.labels;
   fc->crystal_frame = false;
   return frame;

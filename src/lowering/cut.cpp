@@ -56,11 +56,23 @@ void require_metric(const std::array<long, 3>& v, const std::string& system, con
   if (system == "orthorhombic") ok = ok && m.b.has_value();
   if (!ok)
     fail(ErrorKind::bad_geometry,
-         text + " in a " + system + " crystal depends on the axis ratios; give the lattice parameters", where,
-         system == "orthorhombic" ? "lattice = { a = ..., b = ..., c = ... }" : "lattice = { a = ..., c = ... }");
+         text + " in " + (system == "orthorhombic" ? "an " : "a ") + system +
+             " crystal depends on the axis ratios; give the lattice parameters",
+         where,
+         system == "orthorhombic" ? "lattice = { a = ..., b = ..., c = ... } in a scenario, --a --b --c on the command line"
+                                  : "lattice = { a = ..., c = ... } in a scenario, --a --c on the command line");
 }
 
 } // namespace
+
+std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
+  Rational a = m.a.value_or(Rational(1)), b = m.b.value_or(a), c = m.c.value_or(a);
+  Vec3 w = lattice == LatticeKind::hexagonal ? Vec3{v[0] / QSqrt3(a), v[1] / QSqrt3(a), v[2] / QSqrt3(c)}
+                                             : Vec3{v[0] / QSqrt3(a), v[1] / QSqrt3(b), v[2] / QSqrt3(c)};
+  std::array<long, 3> uvw{};
+  if (cartesian_to_lattice_direction(w, lattice, &uvw)) return direction_str(uvw);
+  return vec_str(v);
+}
 
 Vec3 metric_direction(const LatticeDirection& d, const std::string& system, LatticeKind lattice,
                       const LatticeMetric& m, const std::string& where) {

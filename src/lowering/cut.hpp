@@ -35,6 +35,10 @@ CutNormal parse_cut(const std::string& text, const std::string& system, LatticeK
 Vec3 metric_direction(const LatticeDirection& d, const std::string& system, LatticeKind lattice,
                       const LatticeMetric& metric, const std::string& where);
 
+// The lattice direction [uvw] of an exact Cartesian vector, the metric applied
+// (the inverse of metric_direction); the Cartesian components when there is none.
+std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& metric);
+
 // Exact rational from a decimal number (at most 12 significant digits are kept,
 // enough for any measured lattice parameter).
 Rational exact_decimal(double value);

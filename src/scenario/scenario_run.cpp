@@ -80,20 +80,6 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
   return p;
 }
 
-// A lattice direction label for an exact Cartesian vector, using the metric.
-std::string direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
-  Vec3 w = v;
-  Rational a = m.a.value_or(Rational(1)), b = m.b.value_or(a), c = m.c.value_or(a);
-  if (lattice == LatticeKind::hexagonal) {
-    w = {v[0] / QSqrt3(a), v[1] / QSqrt3(a), v[2] / QSqrt3(c)};
-  } else {
-    w = {v[0] / QSqrt3(a), v[1] / QSqrt3(b), v[2] / QSqrt3(c)};
-  }
-  std::array<long, 3> uvw{};
-  if (cartesian_to_lattice_direction(w, lattice, &uvw)) return direction_str(uvw);
-  return vec_str(v);
-}
-
 Vec3 step_direction(const std::string& text, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
                     const std::string& where) {
   return metric_direction(parse_direction(text, where), system, lattice, m, where);
@@ -112,11 +98,11 @@ Frame sample_frame(const Scenario& sc, const std::string& system, LatticeKind la
   if (!sc.cut.empty()) {
     CutNormal cn = parse_cut(sc.cut, system, lattice, m, sc.source + ": cut");
     z = cn.normal;
-    std::string dir = direction_label(z, lattice, m);
+    std::string dir = lattice_direction_label(z, lattice, m);
     *normal_label = cn.plane ? "normal of " + cn.text + (dir.front() == '[' ? " = " + dir : "") : cn.text;
   } else {
     z = step_direction(sc.z, system, lattice, m, sc.source + ": z");
-    *normal_label = direction_label(z, lattice, m);
+    *normal_label = lattice_direction_label(z, lattice, m);
   }
   *normal = z;
   Vec3 x;
@@ -155,11 +141,11 @@ Frame sample_frame(const Scenario& sc, const std::string& system, LatticeKind la
           x = cross(e, z);
           break;
         }
-      x_label = direction_label(x, lattice, m);
+      x_label = lattice_direction_label(x, lattice, m);
     }
   }
   f.axes = {x, cross(z, x), z};
-  f.labels = {x_label, direction_label(f.axes[1], lattice, m), *normal_label};
+  f.labels = {x_label, lattice_direction_label(f.axes[1], lattice, m), *normal_label};
   f.validate();
   return f;
 }
