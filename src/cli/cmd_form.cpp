@@ -2,7 +2,6 @@
 #include "cli/commands.hpp"
 #include "cli/frame_options.hpp"
 #include "core/error.hpp"
-#include "geometry/sample_frame.hpp"
 #include "report/form_report.hpp"
 #include "report/group_report.hpp"
 

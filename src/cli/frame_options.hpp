@@ -55,17 +55,7 @@ inline Frame frame_from_options(const FrameOptions& o, const NamedGroup& g, Fram
   }
   if (o.z.empty() || o.x.empty())
     fail(ErrorKind::usage, "a frame needs both --z and --x", "--z/--x", "--z [110] --x [001]");
-  const LatticeMetric m = metric_option(o);
-  const std::string& system = g.crystal->system;
-  LatticeDirection dz = parse_direction(o.z, "--z"), dx = parse_direction(o.x, "--x");
-  Vec3 z = metric_direction(dz, system, lattice, m, "--z"), x = metric_direction(dx, system, lattice, m, "--x");
-  if (!dot(z, x).is_zero())
-    fail(ErrorKind::bad_geometry, "x " + dx.text + " is not perpendicular to z " + dz.text, "--z/--x",
-         "an x direction in the plane perpendicular to z");
-  Frame frame;
-  frame.axes = {x, cross(z, x), z};
-  frame.labels = {dx.text, lattice_direction_label(frame.axes[1], lattice, m), dz.text};
-  frame.validate();
+  Frame frame = frame_from_directions(o.z, o.x, g.crystal->system, lattice, metric_option(o), "--z/--x");
   fc->axes = frame.labels;
   fc->crystal_frame = false;
   return frame;

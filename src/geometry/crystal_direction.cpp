@@ -60,12 +60,4 @@ LatticeDirection parse_direction(const std::string& raw, const std::string& wher
   return d;
 }
 
-Vec3 direction_vector(const LatticeDirection& d, LatticeKind lattice, const std::string& where) {
-  if (lattice == LatticeKind::hexagonal && d.uvw[2] != 0 && (d.uvw[0] != 0 || d.uvw[1] != 0))
-    fail(ErrorKind::bad_geometry,
-         "direction " + d.text + " mixes in-plane and c components; its Cartesian form depends on c/a", where,
-         "directions along c or in the basal plane, or give the lattice parameters");
-  return lattice_to_cartesian({QSqrt3(d.uvw[0]), QSqrt3(d.uvw[1]), QSqrt3(d.uvw[2])}, lattice);
-}
-
 } // namespace ts

@@ -24,9 +24,4 @@ std::vector<long> parse_miller_indices(const std::string& body, const std::strin
 // Parse "[uvw]", "[1,-1,0]" or "[uvtw]" (t = -(u+v) is checked). `where` names the field for messages.
 LatticeDirection parse_direction(const std::string& text, const std::string& where);
 
-// Exact Cartesian vector of a direction. In hexagonal axes a direction with both
-// in-plane and c components depends on c/a, which this overload does not know:
-// it refuses such directions with Error(bad_geometry).
-Vec3 direction_vector(const LatticeDirection& d, LatticeKind lattice, const std::string& where);
-
 } // namespace ts
