@@ -17,8 +17,6 @@ namespace fs = std::filesystem;
 
 namespace {
 
-const GroupCatalogue& cat() { return GroupCatalogue::builtin(); }
-
 std::string final_type(const ScenarioResult& r) { return r.chain.back().id.type->symbol; }
 
 Scenario basic(const std::string& group) {
