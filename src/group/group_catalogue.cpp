@@ -130,7 +130,9 @@ CrystalClass parse_entry(const toml::table& t, const std::string& file) {
     fail(ErrorKind::bad_file,
          "generators give " + std::to_string(c.group.order()) + " operations, 'order' says " +
              std::to_string(order),
-         at);
+         position(file, t.get("order")->source()) + " (group " + c.name + ")",
+         "order = " + std::to_string(c.group.order()) + ", or generators that give " + std::to_string(order) +
+             " operations");
   auto sym = t.get("symbol");
   if (!sym || !sym->as_array()) fail(ErrorKind::bad_file, "missing array 'symbol'", at, "[[text, operation], ...]");
   std::string joined;
@@ -311,6 +313,15 @@ void GroupCatalogue::derive_magnetic_groups() {
       cands.push_back(bw);
     }
   }
+  for (const auto& c : classes_)
+    for (const auto& n : c.magnetic_names) {
+      bool derived = std::any_of(cands.begin(), cands.end(), [&](const Candidate& k) {
+        return k.g.crystal == &c && k.g.kind == MagneticKind::black_white && k.g.symbol == n;
+      });
+      if (!derived)
+        fail(ErrorKind::bad_file, "magnetic_names lists '" + n + "', which is not a black-white group of " + c.name,
+             c.source, "symbols of the black-white groups derived in this setting (tensorsieve groups -m -s)");
+    }
   // Types: (family, kind, unitary type). The standard representative comes from a
   // standard setting; where several orientations of H exist there, the data file's
   // magnetic_names decide, else the symbol with primes earliest.
