@@ -18,6 +18,8 @@
 
 #include <catch2/catch.hpp>
 
+#include <set>
+
 #include <sstream>
 #include <string>
 #include <vector>
@@ -244,4 +246,21 @@ TEST_CASE("rank above 6 throws too_large", "[spec][errors]") {
     }
     CHECK(threw);
   }
+}
+
+TEST_CASE("Jahn scalars: e is a pseudoscalar, allowed exactly in the 11 chiral classes", "[spec][jahn]") {
+  // Jahn (1949): e marks an axial factor, a a time-odd one, so "e" alone is a pseudoscalar.
+  // A pseudoscalar survives only proper rotations: the 11 enantiomorphic (chiral) classes
+  // (common practice; Nye 1957, optical activity of the enantiomorphous classes).
+  TensorSpec e = parse_tensor_spec("e");
+  CHECK(e.rank == 0);
+  CHECK(e.axial);
+  CHECK_FALSE(e.time_odd);
+  TensorSpec ae = parse_tensor_spec("ae");
+  CHECK(ae.axial);
+  CHECK(ae.time_odd);
+  std::set<std::string> chiral;
+  for (const auto* g : GroupCatalogue::builtin().crystallographic_types())
+    if (independent_count(e, g->group) > 0) chiral.insert(g->symbol);
+  CHECK(chiral == std::set<std::string>{"1", "2", "222", "4", "422", "3", "32", "6", "622", "23", "432"});
 }

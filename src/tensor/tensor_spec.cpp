@@ -271,6 +271,15 @@ TensorSpec parse_tensor_spec(const std::string& raw) {
     s.jahn = "1";
     return s;
   }
+  // Jahn's scalars carry no V: "e" (pseudoscalar), "a" (time-odd scalar), "ae".
+  if (text.size() <= 2 && text.find_first_not_of("ae") == std::string::npos &&
+      (text.size() == 1 || text[0] != text[1])) {
+    TensorSpec s;
+    s.axial = text.find('e') != std::string::npos;
+    s.time_odd = text.find('a') != std::string::npos;
+    s.jahn = text;
+    return s;
+  }
   bool index_style = text.find(':') != std::string::npos || text.find('_') != std::string::npos ||
                      std::all_of(text.begin(), text.end(), [](char c) { return std::islower(static_cast<unsigned char>(c)); });
   bool jahn_style = text.find('V') != std::string::npos;
