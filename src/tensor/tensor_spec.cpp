@@ -185,7 +185,11 @@ TensorSpec parse_index_spec(const std::string& text) {
   for (std::size_t i = 0; i < spec.letters.size(); ++i) {
     char c = spec.letters[i];
     if (!std::islower(static_cast<unsigned char>(c)))
-      spec_error(text, letters_at + i, "index letters are lowercase a-z");
+      spec_error(text, letters_at + i,
+                 c == ' ' ? "expected ':' between the indices and the modifiers (d_ijk: polar, sym(jk))"
+                 : c == '[' || c == '{'
+                     ? "index letters are lowercase a-z; a Jahn symbol is written with a capital V, e.g. [V2]"
+                     : "index letters are lowercase a-z");
     if (spec.letters.find(c) != i) spec_error(text, letters_at + i, std::string("index '") + c + "' appears twice");
   }
   for (char c : spec.name)
