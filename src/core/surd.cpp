@@ -66,15 +66,6 @@ Surd operator*(const Surd& a, const Surd& b) {
   return r;
 }
 
-bool operator<(const Surd& a, const Surd& b) {
-  if (a.terms_.size() != b.terms_.size()) return a.terms_.size() < b.terms_.size();
-  for (std::size_t i = 0; i < a.terms_.size(); ++i) {
-    if (a.terms_[i].first != b.terms_[i].first) return a.terms_[i].first < b.terms_[i].first;
-    if (a.terms_[i].second != b.terms_[i].second) return a.terms_[i].second < b.terms_[i].second;
-  }
-  return false;
-}
-
 double Surd::to_double() const {
   double v = 0;
   for (const auto& [rad, c] : terms_) v += c.to_double() * std::sqrt(static_cast<double>(rad));

@@ -28,7 +28,6 @@ public:
 
   bool is_zero() const { return terms_.empty(); }
   bool is_rational() const { return terms_.empty() || (terms_.size() == 1 && terms_[0].first == 1); }
-  Rational rational_value() const { return terms_.empty() || terms_[0].first != 1 ? Rational() : terms_[0].second; }
   int sign() const; // exact
   double to_double() const;
   const std::vector<std::pair<std::int64_t, Rational>>& terms() const { return terms_; }
@@ -40,7 +39,6 @@ public:
   Surd& operator+=(const Surd& b) { return *this = *this + b; }
   friend bool operator==(const Surd& a, const Surd& b) { return a.terms_ == b.terms_; }
   friend bool operator!=(const Surd& a, const Surd& b) { return !(a == b); }
-  friend bool operator<(const Surd& a, const Surd& b); // structural order, for sorting only
 
 private:
   void add_term(std::int64_t radicand, const Rational& coef);

@@ -1,4 +1,5 @@
 #include "report/form_report.hpp"
+#include "core/text.hpp"
 
 #include "core/error.hpp"
 #include "report/expression_text.hpp"
@@ -46,12 +47,6 @@ std::vector<std::pair<std::vector<std::string>, std::string>> grouped_components
     }
   }
   return out;
-}
-
-std::string join(const std::vector<std::string>& v, const std::string& sep) {
-  std::string s;
-  for (std::size_t i = 0; i < v.size(); ++i) s += (i ? sep : "") + v[i];
-  return s;
 }
 
 struct ViewGrid {

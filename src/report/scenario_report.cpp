@@ -1,4 +1,5 @@
 #include "report/scenario_report.hpp"
+#include "core/text.hpp"
 
 #include "report/expression_text.hpp"
 #include "report/form_report.hpp"
@@ -16,12 +17,6 @@ std::string heading(const std::string& s, Format f, int level = 2) {
   if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
   if (f == Format::latex) return std::string(level <= 1 ? "\\section*{" : "\\subsection*{") + latex_escape(s) + "}\n";
   return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
-}
-
-std::string join(const std::vector<std::string>& v, const std::string& sep) {
-  std::string s;
-  for (std::size_t i = 0; i < v.size(); ++i) s += (i ? sep : "") + v[i];
-  return s;
 }
 
 std::string group_name(const ChainStep& st) {

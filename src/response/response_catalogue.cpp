@@ -1,4 +1,5 @@
 #include "response/response_catalogue.hpp"
+#include "core/text.hpp"
 
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
@@ -43,12 +44,6 @@ std::string normalise_response_key(const std::string& s) {
 }
 
 namespace {
-
-std::string join(const std::vector<std::string>& v, const std::string& sep) {
-  std::string s;
-  for (std::size_t i = 0; i < v.size(); ++i) s += (i ? sep : "") + v[i];
-  return s;
-}
 
 std::string position(const std::string& file, const toml::source_region& src) {
   return file + ":" + std::to_string(src.begin.line) + ":" + std::to_string(src.begin.column);

@@ -1,4 +1,5 @@
 #include "response/response_report.hpp"
+#include "core/text.hpp"
 
 #include "report/json_text.hpp"
 
@@ -8,12 +9,6 @@
 namespace ts {
 
 namespace {
-
-std::string join(const std::vector<std::string>& v, const std::string& sep) {
-  std::string s;
-  for (std::size_t i = 0; i < v.size(); ++i) s += (i ? sep : "") + v[i];
-  return s;
-}
 
 std::string drives_text(const Response& r) {
   return r.drives.empty() ? "none (equilibrium)" : join(r.drives, ", ");

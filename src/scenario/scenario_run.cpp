@@ -225,13 +225,6 @@ PointGroup lower(const PointGroup& g, const LoweringStep& s, const std::string& 
   return g;
 }
 
-bool same(const Combination& a, const Combination& b) {
-  if (a.size() != b.size()) return false;
-  for (std::size_t i = 0; i < a.size(); ++i)
-    if (a[i].parameter != b[i].parameter || a[i].coefficient != b[i].coefficient) return false;
-  return true;
-}
-
 Combination sorted_value(const AllowedForm& f, int code) {
   Combination c = f.value(code);
   std::sort(c.begin(), c.end(), [](const LinearTerm& x, const LinearTerm& y) { return x.parameter < y.parameter; });
@@ -256,7 +249,7 @@ StepChange compare(const AllowedForm& before, const AllowedForm& after) {
       if (v.size() != 1 || v[0].parameter != j || sym.rep_code(r) == anchor) continue;
       const Surd& c = v[0].coefficient;
       Combination expected = combine({}, anchor_after, c);
-      if (!same(expected, sorted_value(after, sym.rep_code(r)))) {
+      if (expected != sorted_value(after, sym.rep_code(r))) {
         ch.broken.push_back({before.component_name(sym.rep_code(r)), before.component_name(anchor), c});
       }
     }

@@ -38,6 +38,9 @@ struct Frame {
 struct LinearTerm {
   int parameter;
   Surd coefficient;
+  friend bool operator==(const LinearTerm& a, const LinearTerm& b) {
+    return a.parameter == b.parameter && a.coefficient == b.coefficient;
+  }
 };
 
 struct AllowedForm {
