@@ -22,7 +22,7 @@
 
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
-#include "lowering/cut.hpp"
+#include "geometry/sample_frame.hpp"
 #include "group/group_catalogue.hpp"
 #include "tensor/allowed_form.hpp"
 
@@ -319,7 +319,7 @@ int run(const Args& args) {
     }
     // A sample frame z ∥ [111], x ∥ [1-10]: components become surds (√2, √6).
     const NamedGroup& cubic = cat->get("m-3m");
-    Frame frame = frame_from_directions("[111]", "[1-10]", "cubic", cubic.group.lattice(), {}, "bench");
+    Frame frame = build_sample_frame({"", "[111]", "[1-10]", "bench"}, "cubic", cubic.group.lattice(), {}).frame;
     for (const char* s : {"[[V2]2]", "V6"}) {
       TensorSpec spec = parse_tensor_spec(s);
       time_probe_form(R, args.probe_timeout, "surds: " + std::string(s) + " in m-3m, z || [111], x || [1-10]", spec,

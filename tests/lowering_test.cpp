@@ -2,7 +2,7 @@
 // and orientation domains, against facts of the trade and published tables.
 #include "group/identify.hpp"
 #include "lowering/curie.hpp"
-#include "lowering/cut.hpp"
+#include "geometry/sample_frame.hpp"
 #include "lowering/domains.hpp"
 #include "tensor/allowed_form.hpp"
 

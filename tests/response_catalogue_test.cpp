@@ -285,7 +285,7 @@ TEST_CASE("CLI: exit codes for unknown ids, groups and bad options", "[responses
   Run g = run("response anomalous-hall 4mmx 2>&1");
   CHECK(g.status == 3);
   CHECK(g.out.find("unknown point group") != std::string::npos);
-  CHECK(run("response anomalous-hall 4mm --z [001] 2>&1").status == 2);
+  CHECK(run("response anomalous-hall 4mm --x [100] 2>&1").status == 2); // x without the z of its frame
   CHECK(run("response anomalous-hall 4mm --format yaml 2>&1").status == 2);
   CHECK(run("response anomalous-hall 2>&1").status == 2);
 }

@@ -6,7 +6,7 @@
 // there is one path through the program.
 #pragma once
 
-#include "lowering/cut.hpp"
+#include "geometry/lattice_metric.hpp"
 #include "lowering/structure_symmetry.hpp"
 
 #include <optional>

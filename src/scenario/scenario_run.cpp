@@ -2,6 +2,7 @@
 
 #include "core/error.hpp"
 #include "lowering/curie.hpp"
+#include "geometry/sample_frame.hpp"
 #include "lowering/glazer_tilts.hpp"
 #include "response/response_catalogue.hpp"
 #include "tensor/param_tensor.hpp"
@@ -83,71 +84,6 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
 Vec3 step_direction(const std::string& text, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
                     const std::string& where) {
   return metric_direction(parse_direction(text, where), system, lattice, m, where);
-}
-
-Frame sample_frame(const Scenario& sc, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
-                   Vec3* normal, std::string* normal_label) {
-  Frame f;
-  if (sc.cut.empty() && sc.z.empty()) {
-    if (!sc.x.empty())
-      fail(ErrorKind::bad_geometry, "sample x given without a cut or z", sc.source, "cut = \"(001)\" or z = \"[001]\"");
-    f.labels = {"[100]", lattice == LatticeKind::hexagonal ? "[120]" : "[010]", "[001]"};
-    return f;
-  }
-  Vec3 z;
-  if (!sc.cut.empty()) {
-    CutNormal cn = parse_cut(sc.cut, system, lattice, m, sc.source + ": cut");
-    z = cn.normal;
-    std::string dir = lattice_direction_label(z, lattice, m);
-    *normal_label = cn.plane ? "normal of " + cn.text + (dir.front() == '[' ? " = " + dir : "") : cn.text;
-  } else {
-    z = step_direction(sc.z, system, lattice, m, sc.source + ": z");
-    *normal_label = lattice_direction_label(z, lattice, m);
-  }
-  *normal = z;
-  Vec3 x;
-  std::string x_label;
-  if (!sc.x.empty()) {
-    x = step_direction(sc.x, system, lattice, m, sc.source + ": x");
-    x_label = parse_direction(sc.x, "x").text;
-    if (!dot(x, z).is_zero())
-      fail(ErrorKind::bad_geometry, "sample x " + x_label + " does not lie in the sample plane (it is not perpendicular to " +
-                                        *normal_label + ")",
-           sc.source + ": x", "a direction perpendicular to the normal");
-  } else {
-    // Defaults of the trade: (001) x ∥ [100]; (110) x ∥ [001]; (111) x ∥ [1-10] (common practice).
-    static const std::array<long, 3> prefs[] = {{1, 0, 0},  {0, 0, 1}, {0, 1, 0}, {1, -1, 0}, {1, 1, 0},
-                                                {1, 0, -1}, {0, 1, -1}, {1, 2, 0}, {1, -2, 0}, {2, -1, 0},
-                                                {1, 1, -2}, {1, -2, 1}, {-2, 1, 1}};
-    bool found = false;
-    for (const auto& p : prefs) {
-      LatticeDirection d;
-      d.uvw = p;
-      d.text = direction_str(p);
-      bool mixed = lattice == LatticeKind::hexagonal && p[2] != 0 && (p[0] || p[1]);
-      if (mixed && !m.c) continue;
-      Vec3 v = metric_direction(d, system, lattice, m, "default x");
-      if (dot(v, z).is_zero()) {
-        x = v;
-        x_label = d.text;
-        found = true;
-        break;
-      }
-    }
-    if (!found) {
-      // Any exact in-plane vector: z × (a crystal axis not parallel to z).
-      for (Vec3 e : {Vec3{QSqrt3(0), QSqrt3(0), QSqrt3(1)}, Vec3{QSqrt3(1), QSqrt3(0), QSqrt3(0)}})
-        if (!parallel(e, z)) {
-          x = cross(e, z);
-          break;
-        }
-      x_label = lattice_direction_label(x, lattice, m);
-    }
-  }
-  f.axes = {x, cross(z, x), z};
-  f.labels = {x_label, lattice_direction_label(f.axes[1], lattice, m), *normal_label};
-  f.validate();
-  return f;
 }
 
 std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
@@ -266,9 +202,9 @@ ScenarioResult run_scenario(const Scenario& sc) {
   Parent parent = parent_group(sc, metric);
   res.parent_note = parent.note;
   const LatticeKind lattice = parent.group.lattice();
-  Vec3 normal{};
-  std::string normal_label;
-  res.frame = sample_frame(sc, parent.system, lattice, metric, &normal, &normal_label);
+  SampleFrame sf = build_sample_frame({sc.cut, sc.z, sc.x, sc.source}, parent.system, lattice, metric);
+  const Vec3 normal = sf.normal;
+  res.frame = sf.frame;
   res.frame_labels = res.frame.labels;
   const auto& cat = GroupCatalogue::builtin();
 

@@ -1,4 +1,4 @@
-// Cuts: the normal of a surface or interface given as a plane (hkl) (or the
+// Lattice metric and cuts. The normal of a surface or interface given as a plane (hkl) (or the
 // Miller-Bravais (hkil) of hexagonal crystals) or as a direction [uvw], turned
 // into an exact Cartesian vector. A plane normal comes from the reciprocal
 // metric, so (hkl) is not parallel to [hkl] when the axes differ in length;
@@ -7,7 +7,7 @@
 
 #include "core/rational.hpp"
 #include "geometry/crystal_direction.hpp"
-#include "tensor/allowed_form.hpp"
+#include "geometry/frame.hpp"
 
 #include <optional>
 #include <string>
@@ -39,12 +39,6 @@ Vec3 metric_direction(const LatticeDirection& d, const std::string& system, Latt
 // The lattice direction [uvw] of an exact Cartesian vector, the metric applied
 // (the inverse of metric_direction); the Cartesian components when there is none.
 std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& metric);
-
-// A right-handed frame x, y = z × x, z from two crystal directions, the metric
-// applied; refused (bad_geometry) when x is not perpendicular to z or when the
-// directions need lattice parameters that are missing.
-Frame frame_from_directions(const std::string& z, const std::string& x, const std::string& system,
-                            LatticeKind lattice, const LatticeMetric& metric, const std::string& where);
 
 // Exact rational from a decimal number (at most 12 significant digits are kept,
 // enough for any measured lattice parameter).

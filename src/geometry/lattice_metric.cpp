@@ -1,4 +1,4 @@
-#include "lowering/cut.hpp"
+#include "geometry/lattice_metric.hpp"
 
 #include "core/error.hpp"
 
@@ -85,20 +85,6 @@ Vec3 metric_direction(const LatticeDirection& d, const std::string& system, Latt
     return {inplane[0] * QSqrt3(a), inplane[1] * QSqrt3(a), QSqrt3(c * Rational(d.uvw[2]))};
   }
   return {QSqrt3(a * Rational(d.uvw[0])), QSqrt3(b * Rational(d.uvw[1])), QSqrt3(c * Rational(d.uvw[2]))};
-}
-
-Frame frame_from_directions(const std::string& z, const std::string& x, const std::string& system,
-                            LatticeKind lattice, const LatticeMetric& m, const std::string& where) {
-  LatticeDirection dz = parse_direction(z, where), dx = parse_direction(x, where);
-  Vec3 vz = metric_direction(dz, system, lattice, m, where), vx = metric_direction(dx, system, lattice, m, where);
-  if (!dot(vz, vx).is_zero())
-    fail(ErrorKind::bad_geometry, "x " + dx.text + " is not perpendicular to z " + dz.text, where,
-         "an x direction in the plane perpendicular to z");
-  Frame frame;
-  frame.axes = {vx, cross(vz, vx), vz};
-  frame.labels = {dx.text, lattice_direction_label(frame.axes[1], lattice, m), dz.text};
-  frame.validate();
-  return frame;
 }
 
 CutNormal parse_cut(const std::string& raw, const std::string& system, LatticeKind lattice, const LatticeMetric& m,
