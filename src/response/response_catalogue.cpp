@@ -30,6 +30,21 @@ const std::vector<std::string>& response_statuses() {
   return v;
 }
 
+const std::vector<std::string>& response_index_roles() {
+  static const std::vector<std::string> v{"E",  "j", "h", "B",     "M",      "S",          "Js",   "P",    "H", "light",
+                                          "k",  "g", "Q", "stress", "strain", "indicatrix", "heat", "gradT"};
+  return v;
+}
+
+const char* drive_kind_name(DriveKind k) {
+  switch (k) {
+  case DriveKind::current: return "current";
+  case DriveKind::field: return "field";
+  case DriveKind::none: break;
+  }
+  return "";
+}
+
 std::string normalise_response_key(const std::string& s) {
   std::string out;
   for (unsigned char c : s) {
@@ -176,9 +191,50 @@ void check_source_tags(const TableReader& r, const std::string& source, const st
             "the tag of the first (primary) citation in 'source'");
 }
 
+// The roles make contraction computable: check them against the spec, and
+// for transport parts check that the harmonic is the number of drive indices.
+void read_roles(const TableReader& r, ResponsePart& p) {
+  p.indices = r.list("indices", true);
+  const auto& roles = response_index_roles();
+  for (const auto& x : p.indices)
+    if (std::find(roles.begin(), roles.end(), x) == roles.end())
+      r.error("indices", "unknown role '" + x + "'", join(roles, ", "));
+  if (static_cast<int>(p.indices.size()) != p.spec.rank)
+    r.error("indices", "gives " + std::to_string(p.indices.size()) + " roles for a rank-" + std::to_string(p.spec.rank) +
+                           " spec", "one role per index, the response first");
+  const toml::node* h = r.table().get("harmonic");
+  if (!h || !h->value<int64_t>() || *h->value<int64_t>() < 0 || *h->value<int64_t>() > 6)
+    r.error("harmonic", h ? "must be an integer from 0 to 6" : "is missing", "the power of the drive, e.g. 2 for a 2ω response");
+  p.harmonic = static_cast<int>(*h->value<int64_t>());
+  std::string drive = r.text("drive", false);
+  if (drive.empty()) return;
+  if (drive == "current") p.drive = DriveKind::current;
+  else if (drive == "field") p.drive = DriveKind::field;
+  else r.error("drive", "unknown drive kind '" + drive + "'", "current (E = rho·j) or field (j = sigma·E)");
+  const std::string in = p.drive == DriveKind::current ? "j" : "E", out = p.drive == DriveKind::current ? "E" : "j";
+  int drives = 0, halls = 0;
+  for (std::size_t i = 0; i < p.indices.size(); ++i) {
+    const std::string& x = p.indices[i];
+    if (x == "h") ++halls;
+    else if (x == in) ++drives;
+    else if (x == out && i == 0) continue;
+    else if (x != "B" && x != "M")
+      r.error("indices", "role '" + x + "' at index " + std::to_string(i + 1) + " is not part of a " + drive +
+                             "-driven transport tensor",
+              out + " first (or one h), then " + in + ", B or M");
+  }
+  bool response_first = p.indices.empty() ? false : (p.indices[0] == out || halls == 1);
+  if (!response_first || halls > 1)
+    r.error("indices", "a transport part needs the response " + out + " as its first index, or one Hall-vector index h");
+  if (drives + halls != p.harmonic)
+    r.error("harmonic", "is " + std::to_string(p.harmonic) + " but the part has " + std::to_string(drives + halls) +
+                            " powers of the drive " + in + (halls ? " (the Hall vector counts one: E = h × j)" : ""),
+            std::to_string(drives + halls));
+}
+
 ResponsePart parse_part(const toml::table& t, const std::string& file, const std::string& id, std::size_t index) {
   TableReader r(t, file, "response '" + id + "', part " + std::to_string(index + 1));
-  r.only_keys({"label", "spec", "mechanism", "hall", "excluded"});
+  r.only_keys({"label", "spec", "indices", "harmonic", "drive", "mechanism", "hall", "excluded"});
   ResponsePart p;
   p.where = file + ":" + std::to_string(t.source().begin.line);
   p.label = r.text("label");
@@ -186,6 +242,7 @@ ResponsePart parse_part(const toml::table& t, const std::string& file, const std
   p.mechanism = r.text("mechanism", false);
   p.hall = r.flag("hall");
   p.spec = spec_at(r, "spec", p.spec_text);
+  read_roles(r, p);
   p.excluded_text = r.text("excluded", false);
   if (t.get("excluded")) {
     if (p.excluded_text.empty()) r.error("excluded", "is empty", "a tensor spec, e.g. \"trD_: axial, time-even\"");
@@ -205,7 +262,7 @@ Response parse_response(const toml::table& t, const std::string& file, std::size
   std::string id = idn && idn->value<std::string>() ? *idn->value<std::string>() : "#" + std::to_string(index + 1);
   TableReader r(t, file, "response '" + id + "'");
   r.only_keys({"id", "name", "aliases", "relation", "response", "drives", "harmonic", "time_reversal", "onsager",
-               "contraction", "source", "status", "part"});
+               "source", "status", "part"});
   Response out;
   out.where = file + ":" + std::to_string(t.source().begin.line);
   out.id = r.text("id");
@@ -225,7 +282,6 @@ Response parse_response(const toml::table& t, const std::string& file, std::size
     r.error("harmonic", "unknown harmonic '" + out.harmonic + "'", join(response_harmonics(), ", "));
   out.time_reversal = r.text("time_reversal");
   out.onsager = r.text("onsager");
-  out.contraction = r.text("contraction");
   out.source = r.text("source");
   out.status = r.text("status");
   check_source_tags(r, out.source, out.status);

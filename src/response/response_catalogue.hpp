@@ -17,9 +17,16 @@
 
 namespace ts {
 
+// How a transport part meets a Hall bar: as the answer to a driven current
+// (E = rho·j, resistivity type) or to a driving field (j = sigma·E).
+enum class DriveKind { none, current, field };
+
 struct ResponsePart {
   std::string label, spec_text, mechanism;
   TensorSpec spec;
+  std::vector<std::string> indices; // role of each index: response first, then drives (response_index_roles())
+  int harmonic = 0;                 // power of the drive: highest harmonic it produces (0: static)
+  DriveKind drive = DriveKind::none;
   bool hall = false; // dissipationless (j·E = 0)
   // A piece of `spec` that cannot reach the measured quantity, e.g. the trace
   // of the dipole D in j = E × (Dᵀ E). It must be an O(3)- and time-reversal-
@@ -31,7 +38,7 @@ struct ResponsePart {
 };
 
 struct Response {
-  std::string id, name, relation, response, harmonic, time_reversal, onsager, contraction, source, status;
+  std::string id, name, relation, response, harmonic, time_reversal, onsager, source, status;
   std::vector<std::string> aliases, drives;
   std::vector<ResponsePart> parts;
   std::string where; // file:line of the [[response]] table
@@ -62,6 +69,8 @@ private:
 const std::vector<std::string>& response_harmonics(); // 1ω, 2ω, 3ω, DC, 2ω+DC, static
 const std::vector<std::string>& response_drives();    // E, B, M, j, H, gradT, light, stress, strain, temperature
 const std::vector<std::string>& response_statuses();  // checked, title checked, from memory, common practice
+const std::vector<std::string>& response_index_roles(); // E, j, h, B, M, S, Js, P, H, light, k, g, Q, ...
+const char* drive_kind_name(DriveKind k);              // "current", "field", ""
 // "Anomalous Hall" -> "anomalous-hall".
 std::string normalise_response_key(const std::string& s);
 

@@ -34,6 +34,16 @@ std::string part_flags(const ResponsePart& p) {
   return p.hall ? "Hall part: dissipationless, j·E = 0" : "";
 }
 
+// "E j j B: response E, driven by a current; second power of the drive (harmonics up to 2ω)".
+std::string roles_text(const ResponsePart& p) {
+  std::string out = p.indices.empty() ? "(a scalar)" : join(p.indices, " ");
+  if (p.drive != DriveKind::none)
+    out += std::string("; ") + (p.drive == DriveKind::current ? "answers a driven current (E = rho·j)"
+                                                             : "answers a driving field (j = sigma·E)");
+  if (p.harmonic > 0) out += "; power " + std::to_string(p.harmonic) + " of the drive";
+  return out;
+}
+
 // Field name and value pairs shared by the text, Markdown and LaTeX layouts.
 std::vector<std::pair<std::string, std::string>> fields(const Response& r) {
   std::vector<std::pair<std::string, std::string>> f;
@@ -44,7 +54,6 @@ std::vector<std::pair<std::string, std::string>> fields(const Response& r) {
   f.emplace_back("harmonic", r.harmonic);
   f.emplace_back("time reversal", r.time_reversal);
   f.emplace_back("Onsager", r.onsager);
-  f.emplace_back("contraction", r.contraction);
   f.emplace_back("source", r.source);
   f.emplace_back("status", r.status + " (tag of the first source)");
   return f;
@@ -62,7 +71,10 @@ toml::table part_meta_json(const ResponsePart& p) {
                 {"canonical_spec", p.spec.canonical_text()},
                 {"description", p.spec.description()},
                 {"mechanism", p.mechanism},
-                {"hall", p.hall}};
+                {"hall", p.hall},
+                {"indices", string_array(p.indices)},
+                {"harmonic", static_cast<std::int64_t>(p.harmonic)}};
+  if (p.drive != DriveKind::none) t.insert_or_assign("drive", drive_kind_name(p.drive));
   if (p.excluded) t.insert_or_assign("excluded", p.excluded_text);
   return t;
 }
@@ -79,7 +91,6 @@ void response_json(const Response& r, toml::table& out) {
   out.insert_or_assign("harmonic", r.harmonic);
   out.insert_or_assign("time_reversal", r.time_reversal);
   out.insert_or_assign("onsager", r.onsager);
-  out.insert_or_assign("contraction", r.contraction);
   out.insert_or_assign("source", r.source);
   out.insert_or_assign("status", r.status);
 }
@@ -170,6 +181,7 @@ std::string write_response(const Response& r, const std::vector<PartForm>& parts
       const PartForm& pf = parts[i];
       const ResponsePart& p = *pf.part;
       os << "\npart " << (i + 1) << ": " << p.label << "\n";
+      os << "  indices:   " << roles_text(p) << "\n";
       if (p.hall) os << "  " << part_flags(p) << "\n";
       if (!p.mechanism.empty()) os << "  mechanism (guidance only): " << p.mechanism << "\n";
       if (p.excluded)
@@ -192,6 +204,7 @@ std::string write_response(const Response& r, const std::vector<PartForm>& parts
       const PartForm& pf = parts[i];
       const ResponsePart& p = *pf.part;
       os << "\n## Part " << (i + 1) << ": " << p.label << "\n\n";
+      os << "- indices: " << roles_text(p) << "\n";
       if (p.hall) os << "- " << part_flags(p) << "\n";
       if (!p.mechanism.empty()) os << "- mechanism (guidance only): " << p.mechanism << "\n";
       if (p.excluded)
@@ -219,6 +232,7 @@ std::string write_response(const Response& r, const std::vector<PartForm>& parts
     const PartForm& pf = parts[i];
     const ResponsePart& p = *pf.part;
     os << "\n\\subparagraph{Part " << (i + 1) << ": " << latex_escape(p.label) << "}\n";
+    os << "Indices: " << latex_escape(roles_text(p)) << ". ";
     if (p.hall) os << latex_escape(part_flags(p)) << ". ";
     if (!p.mechanism.empty()) os << "Mechanism (guidance only): " << latex_escape(p.mechanism) << ". ";
     if (p.excluded)
