@@ -4,6 +4,7 @@
 #include "core/error.hpp"
 #include "report/scenario_report.hpp"
 
+#include <algorithm>
 #include <memory>
 
 namespace ts::cli {
@@ -27,7 +28,8 @@ void setup_sample(CLI::App& app) {
   struct Opts {
     OutputOptions out;
     Scenario sc;
-    std::vector<std::string> lowerings;
+    std::vector<std::string> lowerings, bars, layouts, rosette, layout_directions, layout_fields;
+    std::string waveform = "sine";
     std::string a, b, c;
     bool colourless = false;
   };
@@ -49,6 +51,19 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--c", o->c, "lattice parameter c");
   cmd->add_flag("--colourless", o->colourless, "take a group without primes literally, not as G1'");
   cmd->add_flag("--domains", o->sc.domains, "orientation domains of the lowering and their average");
+  cmd->add_option("--bar", o->bars,
+                  "a Hall bar CURRENT[:FIELD] (repeatable): CURRENT is rotating, an in-plane [uvw] or an angle from x "
+                  "(multiple of 15°); FIELD is none, in-plane, normal, any, along-current, across-current, [uvw] or "
+                  "in-plane:ANGLE (default any)");
+  cmd->add_option("--waveform", o->waveform, "drive waveform of the bars: sine (default) or cosine");
+  cmd->add_option("--layout", o->layouts, "design the bars to pattern for RESPONSE[:HARMONIC] (repeatable)");
+  cmd->add_option("--rosette", o->rosette, "candidate bar angles from x in degrees for --layout, e.g. 0,30,45,90")
+      ->delimiter(',');
+  cmd->add_option("--layout-directions", o->layout_directions, "candidate in-plane bar directions for --layout")
+      ->delimiter(',');
+  cmd->add_option("--layout-fields", o->layout_fields,
+                  "field geometries each candidate bar is measured in (default along-current,across-current,normal)")
+      ->delimiter(',');
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     Scenario sc = o->sc;
@@ -56,6 +71,27 @@ void setup_sample(CLI::App& app) {
     for (std::size_t i = 0; i < o->lowerings.size(); ++i)
       sc.steps.push_back(parse_lowering_option(o->lowerings[i], "--lower " + o->lowerings[i]));
     sc.metric = metric_option({"", "", o->a, o->b, o->c});
+    for (const auto& b : o->bars) {
+      BarSpec spec = parse_bar_option(b, "--bar " + b);
+      spec.waveform = o->waveform;
+      sc.bars.push_back(spec);
+    }
+    for (const auto& l : o->layouts) {
+      LayoutSpec spec = parse_layout_option(l, "--layout " + l);
+      spec.directions = o->layout_directions;
+      spec.fields = o->layout_fields;
+      for (const auto& a : o->rosette) {
+        bool ok = !a.empty() && a.size() < 6 && a.find_first_not_of("-0123456789") == std::string::npos &&
+                  std::stoi(a) % 15 == 0;
+        if (!ok) fail(ErrorKind::usage, "rosette angle '" + a + "' is not a multiple of 15 degrees", "--rosette", "e.g. --rosette 0,30,45,90");
+        spec.rosette.push_back(std::stoi(a));
+      }
+      sc.layouts.push_back(spec);
+      if (std::find(sc.responses.begin(), sc.responses.end(), spec.response) == sc.responses.end())
+        sc.responses.push_back(spec.response);
+    }
+    if (!o->rosette.empty() && o->layouts.empty())
+      fail(ErrorKind::usage, "--rosette needs --layout", "--rosette", "--layout second-order-conductivity:2 --rosette 0,45,90");
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");

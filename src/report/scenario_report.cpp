@@ -1,10 +1,12 @@
 #include "report/scenario_report.hpp"
 #include "core/text.hpp"
 
+#include "report/bar_report.hpp"
 #include "report/expression_text.hpp"
 #include "report/form_report.hpp"
 #include "report/json_text.hpp"
 
+#include <algorithm>
 #include <sstream>
 
 namespace ts {
@@ -119,7 +121,12 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
                                       {"switched_on", on},
                                       {"relations_broken", broken}});
       }
-      toml::table entry{{"response", p.response_id},
+      toml::array planar, skipped;
+      for (auto v : p.planar) planar.push_back(planar_reading_text(v));
+      for (bool v : p.field_step_skipped) skipped.push_back(v);
+      toml::table entry{{"planar_bar_by_step", planar},
+                        {"field_step_not_applied", skipped},
+                        {"response", p.response_id},
                         {"response_name", p.response_name},
                         {"part", p.part_label},
                         {"spec", p.spec.canonical_text()},
@@ -140,6 +147,8 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       parts.push_back(entry);
     }
     root.insert("parts", parts);
+    root.insert("bars", bars_json(r));
+    root.insert("layouts", layouts_json(r));
     return json_text(root);
   }
 
@@ -178,9 +187,21 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     std::vector<std::vector<std::string>> counts;
     for (std::size_t i = 0; i < r.chain.size(); ++i) {
       int n = p.counts[i];
-      counts.push_back({std::to_string(i), code(group_name(r.chain[i]), f), std::to_string(n), n > 0 ? "allowed" : "forbidden"});
+      std::string verdict = p.planar[i] == PlanarReading::not_a_bar_part ? (n > 0 ? "allowed" : "forbidden")
+                                                                         : planar_reading_text(p.planar[i]);
+      std::string group = p.field_step_skipped[i] ? "as step " + std::to_string(i - 1) + " (field not applied)"
+                                                  : code(group_name(r.chain[i]), f);
+      counts.push_back({std::to_string(i), group, std::to_string(n), verdict});
     }
     os << grid({"step", "group", "independent", "verdict"}, counts, f) << "\n";
+    if (std::find(p.field_step_skipped.begin(), p.field_step_skipped.end(), true) != p.field_step_skipped.end())
+      os << (f == Format::markdown ? "- " : "  ") << "this part is an expansion in the field (or magnetisation): "
+         << "the field enters through its powers and the bar's field direction, so the steps that apply it are not "
+         << "applied again here" << (f == Format::latex ? "\\" : "") << "\n";
+    if (std::find(p.planar.begin(), p.planar.end(), PlanarReading::not_readable) != p.planar.end())
+      os << (f == Format::markdown ? "- " : "  ") << "\"not readable in a planar bar\": the allowed components give zero "
+         << "on both probes for every in-plane current direction and every field direction"
+         << (f == Format::latex ? "\\" : "") << "\n";
     for (const auto& ch : r.changes) {
       if (ch.part != k || (ch.switched_on.empty() && ch.broken.empty())) continue;
       std::string on;
@@ -214,6 +235,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
          << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
     }
   }
+  os << write_bars(r, f) << write_layouts(r, f);
   return finish(os.str(), f);
 }
 

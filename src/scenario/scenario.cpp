@@ -119,6 +119,109 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
   return s;
 }
 
+BarSpec parse_bar_option(const std::string& text, const std::string& where) {
+  BarSpec b;
+  b.where = where;
+  std::size_t colon = text.find(':');
+  b.current = text.substr(0, colon);
+  if (b.current.empty()) b.current = "rotating";
+  if (colon != std::string::npos) b.field = text.substr(colon + 1);
+  b.name = "bar (" + text + ")";
+  return b;
+}
+
+LayoutSpec parse_layout_option(const std::string& text, const std::string& where) {
+  LayoutSpec l;
+  l.where = where;
+  std::size_t colon = text.find(':');
+  l.response = text.substr(0, colon);
+  if (colon != std::string::npos) {
+    std::string h = text.substr(colon + 1);
+    if (h.size() != 1 || h[0] < '0' || h[0] > '6')
+      fail(ErrorKind::usage, "'" + h + "' is not a harmonic", where, "RESPONSE:N with N from 0 (DC) to 6, e.g. second-order-conductivity:2");
+    l.harmonic = h[0] - '0';
+  }
+  return l;
+}
+
+namespace {
+
+std::optional<double> get_positive(const toml::table& t, const char* key, const std::string& file, const char* unit) {
+  auto node = t.get(key);
+  if (!node) return std::nullopt;
+  auto v = node->value<double>();
+  if (!v || !(*v > 0) || *v > 1e6)
+    fail(ErrorKind::bad_file, std::string("'") + key + "' must be a positive number", at(file, node->source()),
+         std::string("a value in ") + unit);
+  return *v;
+}
+
+void read_bars(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("bar");
+  if (!node) return;
+  auto arr = node->as_array();
+  if (!arr) fail(ErrorKind::bad_file, "'bar' must be an array of tables [[bar]]", at(path, node->source()));
+  for (auto& el : *arr) {
+    auto t = el.as_table();
+    if (!t) fail(ErrorKind::bad_file, "each [[bar]] entry must be a table", at(path, el.source()));
+    check_keys(*t, {"name", "current", "field", "waveform", "current_rms", "length", "width", "thickness", "responses"},
+               path, "[[bar]]");
+    BarSpec b;
+    b.where = at(path, t->source());
+    b.name = get_string(*t, "name", path, false, "a string");
+    if (b.name.empty()) b.name = "bar " + std::to_string(sc.bars.size() + 1);
+    std::string cur = get_string(*t, "current", path, false, "\"rotating\", \"[110]\" or an angle such as \"30\"");
+    if (!cur.empty()) b.current = cur;
+    std::string f = get_string(*t, "field", path, false, "in-plane, normal, any, along-current, across-current, none or \"[001]\"");
+    if (!f.empty()) b.field = f;
+    std::string w = get_string(*t, "waveform", path, false, "\"sine\" or \"cosine\"");
+    if (!w.empty()) b.waveform = w;
+    b.current_rms = get_positive(*t, "current_rms", path, "ampere (rms)");
+    b.length = get_positive(*t, "length", path, "metre (distance between the longitudinal probes)");
+    b.width = get_positive(*t, "width", path, "metre");
+    b.thickness = get_positive(*t, "thickness", path, "metre");
+    b.responses = get_strings(*t, "responses", path);
+    sc.bars.push_back(b);
+  }
+}
+
+void read_layouts(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("layout");
+  if (!node) return;
+  auto arr = node->as_array();
+  if (!arr) fail(ErrorKind::bad_file, "'layout' must be an array of tables [[layout]]", at(path, node->source()));
+  for (auto& el : *arr) {
+    auto t = el.as_table();
+    if (!t) fail(ErrorKind::bad_file, "each [[layout]] entry must be a table", at(path, el.source()));
+    check_keys(*t, {"response", "harmonic", "directions", "rosette", "fields"}, path, "[[layout]]");
+    LayoutSpec l;
+    l.where = at(path, t->source());
+    l.response = get_string(*t, "response", path, true, "a catalogue id such as \"second-order-conductivity\"");
+    if (auto h = t->get("harmonic")) {
+      auto v = h->value<int64_t>();
+      if (!v || *v < 0 || *v > 6)
+        fail(ErrorKind::bad_file, "'harmonic' must be an integer from 0 (DC) to 6", at(path, h->source()), "harmonic = 2");
+      l.harmonic = static_cast<int>(*v);
+    }
+    l.directions = get_strings(*t, "directions", path);
+    if (auto r = t->get("rosette")) {
+      auto ra = r->as_array();
+      if (!ra) fail(ErrorKind::bad_file, "'rosette' must be an array of angles in degrees", at(path, r->source()), "rosette = [0, 45, 90]");
+      for (auto& a : *ra) {
+        auto v = a.value<int64_t>();
+        if (!v || *v % 15 != 0 || *v < -360 || *v > 360)
+          fail(ErrorKind::bad_file, "rosette angles must be whole multiples of 15 degrees (exact cosines)",
+               at(path, a.source()), "rosette = [0, 30, 45, 90]");
+        l.rosette.push_back(static_cast<int>(*v));
+      }
+    }
+    l.fields = get_strings(*t, "fields", path);
+    sc.layouts.push_back(l);
+  }
+}
+
+} // namespace
+
 Scenario load_scenario(const std::string& path) {
   toml::table root;
   try {
@@ -129,7 +232,8 @@ Scenario load_scenario(const std::string& path) {
   }
   Scenario sc;
   sc.source = path;
-  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report"}, path, "the scenario");
+  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout"}, path,
+             "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
@@ -198,6 +302,8 @@ Scenario load_scenario(const std::string& path) {
   }
   sc.responses = get_strings(root, "responses", path);
   sc.tensors = get_strings(root, "tensors", path);
+  read_bars(root, path, sc);
+  read_layouts(root, path, sc);
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains"}, path, "[report]");
     if (auto d = rep->get("domains")) {

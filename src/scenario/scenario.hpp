@@ -26,6 +26,29 @@ struct LoweringStep {
   std::string where;  // file:line or option, for messages
 };
 
+// A Hall bar of the scenario (docs/hall-bars.md): its current direction,
+// field geometry and drive, turned into a BarMeasurement once the sample frame
+// is known.
+struct BarSpec {
+  std::string name;
+  std::string current = "rotating";  // "rotating", "[uvw]" in plane, or degrees from sample x (multiple of 15)
+  std::string field = "any";         // none, in-plane, normal, any, along-current, across-current, [uvw], in-plane:ANGLE
+  std::string waveform = "sine";     // sine or cosine
+  std::optional<double> current_rms, length, width, thickness; // A, m
+  std::vector<std::string> responses; // catalogue ids; empty: every response of the scenario
+  std::string where;
+};
+
+// Which bars to pattern for one response at one harmonic (layout_design.hpp).
+struct LayoutSpec {
+  std::string response;
+  int harmonic = 1;
+  std::vector<std::string> directions; // in-plane crystal directions; empty with no rosette: low-index ones
+  std::vector<int> rosette;            // bar angles from sample x in degrees (multiples of 15)
+  std::vector<std::string> fields;     // field geometries per bar; empty: along, across, normal for field parts
+  std::string where;
+};
+
 struct Scenario {
   std::string title;
   std::string source = "command line";
@@ -40,6 +63,8 @@ struct Scenario {
   std::vector<std::string> responses; // catalogue ids
   std::vector<std::string> tensors;   // extra tensor specs
   bool domains = false;
+  std::vector<BarSpec> bars;
+  std::vector<LayoutSpec> layouts;
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
@@ -47,5 +72,9 @@ LoweringKind parse_lowering_kind(const std::string& text, const std::string& whe
 const char* lowering_kind_name(LoweringKind k);
 // "strain:[001]", "field:[1-10]", "shear:[100],[010]", "magnetic-group:4'/m'm'm", "tilts:a0a0c-"
 LoweringStep parse_lowering_option(const std::string& text, const std::string& where);
+// "--bar [100]:in-plane" -> current "[100]", field "in-plane" (the field part is optional).
+BarSpec parse_bar_option(const std::string& text, const std::string& where);
+// "--layout second-order-conductivity:2" -> response and harmonic.
+LayoutSpec parse_layout_option(const std::string& text, const std::string& where);
 
 } // namespace ts

@@ -205,6 +205,9 @@ ScenarioResult run_scenario(const Scenario& sc) {
   SampleFrame sf = build_sample_frame({sc.cut, sc.z, sc.x, sc.source}, parent.system, lattice, metric);
   const Vec3 normal = sf.normal;
   res.frame = sf.frame;
+  res.sample = sf;
+  res.system = parent.system;
+  res.metric = metric;
   res.frame_labels = res.frame.labels;
   const auto& cat = GroupCatalogue::builtin();
 
@@ -236,14 +239,74 @@ ScenarioResult run_scenario(const Scenario& sc) {
   const auto& responses = ResponseCatalogue::builtin();
   for (const auto& id : sc.responses) {
     const Response& r = responses.get(id);
-    for (const auto& part : r.parts) res.parts.push_back({r.id, r.name, part.label, part.spec, part.excluded, {}, {}});
-  }
-  for (const auto& t : sc.tensors) res.parts.push_back({"", "tensor " + t, t, parse_tensor_spec(t), std::nullopt, {}, {}});
-  for (auto& p : res.parts)
-    for (const auto& st : res.chain) {
-      p.forms.push_back(allowed_form(p.spec, st.group, res.frame));
-      p.counts.push_back(p.forms.back().independent() - (p.excluded ? independent_count(*p.excluded, st.group) : 0));
+    for (const auto& part : r.parts) {
+      PartForms pf;
+      pf.response_id = r.id;
+      pf.response_name = r.name;
+      pf.part_label = part.label;
+      pf.catalogue_part = &part;
+      pf.spec = part.spec;
+      pf.excluded = part.excluded;
+      res.parts.push_back(std::move(pf));
     }
+  }
+  for (const auto& t : sc.tensors) {
+    PartForms pf;
+    pf.response_name = "tensor " + t;
+    pf.part_label = t;
+    pf.spec = parse_tensor_spec(t);
+    res.parts.push_back(std::move(pf));
+  }
+
+  // Chains that leave out the field (or field and moment) steps, for the
+  // parts that are expansions in B (or M).
+  auto chain_without = [&](bool skip_moment) {
+    std::vector<PointGroup> groups{res.chain[0].group};
+    std::vector<bool> skipped{false};
+    if (!sc.cut.empty()) {
+      groups.push_back(res.chain[1].group);
+      skipped.push_back(false);
+    }
+    for (const auto& s : sc.steps) {
+      bool skip = s.kind == LoweringKind::magnetic_field || (skip_moment && s.kind == LoweringKind::moment);
+      std::string ignored;
+      groups.push_back(skip ? groups.back() : lower(groups.back(), s, parent.system, metric, &ignored));
+      skipped.push_back(skip);
+    }
+    return std::make_pair(groups, skipped);
+  };
+  auto has_role = [](const PartForms& p, const char* role) {
+    return p.catalogue_part &&
+           std::find(p.catalogue_part->indices.begin(), p.catalogue_part->indices.end(), role) != p.catalogue_part->indices.end();
+  };
+  bool any_field_step = std::any_of(sc.steps.begin(), sc.steps.end(), [](const LoweringStep& s) {
+    return s.kind == LoweringKind::magnetic_field || s.kind == LoweringKind::moment;
+  });
+  std::optional<std::pair<std::vector<PointGroup>, std::vector<bool>>> without_b, without_bm;
+  BarMeasurement general; // the most general planar bar: current and field directions free
+  for (auto& p : res.parts) {
+    const std::vector<PointGroup>* groups = nullptr;
+    const std::vector<bool>* skipped = nullptr;
+    if (any_field_step && (has_role(p, "M") || has_role(p, "B"))) {
+      auto& alt = has_role(p, "M") ? without_bm : without_b;
+      if (!alt) alt = chain_without(has_role(p, "M"));
+      groups = &alt->first;
+      skipped = &alt->second;
+    }
+    for (std::size_t i = 0; i < res.chain.size(); ++i) {
+      const PointGroup& g = groups ? (*groups)[i] : res.chain[i].group;
+      p.forms.push_back(allowed_form(p.spec, g, res.frame));
+      p.counts.push_back(p.forms.back().independent() - (p.excluded ? independent_count(*p.excluded, g) : 0));
+      p.field_step_skipped.push_back(skipped && (*skipped)[i]);
+      PlanarReading pr = PlanarReading::not_a_bar_part;
+      if (p.catalogue_part && is_bar_part(*p.catalogue_part)) {
+        if (p.counts.back() == 0) pr = PlanarReading::forbidden;
+        else pr = bar_signal(*p.catalogue_part, p.forms.back(), general).reads() ? PlanarReading::readable
+                                                                                   : PlanarReading::not_readable;
+      }
+      p.planar.push_back(pr);
+    }
+  }
 
   for (std::size_t i = 1; i < res.chain.size(); ++i)
     for (std::size_t k = 0; k < res.parts.size(); ++k) {
@@ -271,7 +334,67 @@ ScenarioResult run_scenario(const Scenario& sc) {
         res.domains.push_back({k, from, h, std::move(form), std::move(a)});
       }
   }
+  for (const auto& spec : sc.bars) {
+    BarResult br;
+    br.measurement.name = spec.name;
+    br.measurement.where = spec.where;
+    set_bar_current(br.measurement, spec.current, sf, parent.system, lattice, metric);
+    set_bar_field(br.measurement, spec.field, sf, parent.system, lattice, metric);
+    br.measurement.waveform = parse_waveform(spec.waveform, spec.where);
+    br.measurement.current_rms = spec.current_rms;
+    br.measurement.length = spec.length;
+    br.measurement.width = spec.width;
+    br.measurement.thickness = spec.thickness;
+    for (const auto& id : spec.responses) responses.get(id); // unknown ids fail here, with the closest ids
+    for (std::size_t k = 0; k < res.parts.size(); ++k) {
+      const PartForms& p = res.parts[k];
+      if (!p.catalogue_part || !is_bar_part(*p.catalogue_part)) continue;
+      if (!spec.responses.empty() &&
+          std::find_if(spec.responses.begin(), spec.responses.end(), [&](const std::string& id) {
+            return responses.get(id).id == p.response_id;
+          }) == spec.responses.end())
+        continue;
+      br.signals.push_back({k, bar_signal(*p.catalogue_part, p.forms.back(), br.measurement)});
+    }
+    res.bars.push_back(std::move(br));
+  }
+
+  for (const auto& spec : sc.layouts) {
+    LayoutResult lr;
+    lr.spec = spec;
+    const Response& r = responses.get(spec.response);
+    std::vector<LayoutCandidate> candidates =
+        layout_candidates(spec.directions, spec.rosette, sf, parent.system, lattice, metric, spec.where);
+    if (candidates.empty())
+      fail(ErrorKind::bad_geometry, "no bar direction to choose from", spec.where,
+           "in-plane directions or rosette angles");
+    for (std::size_t k = 0; k < res.parts.size(); ++k) {
+      const PartForms& p = res.parts[k];
+      if (p.response_id != r.id || !p.catalogue_part || !is_bar_part(*p.catalogue_part)) continue;
+      int order = p.catalogue_part->harmonic;
+      bool at_harmonic = spec.harmonic <= order && (order - spec.harmonic) % 2 == 0;
+      if (!at_harmonic || p.counts.back() == 0) continue;
+      lr.parts.push_back(k);
+      lr.designs.push_back(design_layout(*p.catalogue_part, p.forms.back(), candidates, spec.fields, sf,
+                                         parent.system, lattice, metric));
+    }
+    if (std::find(sc.responses.begin(), sc.responses.end(), spec.response) == sc.responses.end() &&
+        std::none_of(res.parts.begin(), res.parts.end(), [&](const PartForms& p) { return p.response_id == r.id; }))
+      fail(ErrorKind::bad_file, "the layout asks for " + r.id + ", which is not among the scenario's responses",
+           spec.where, "add it to responses = [...]");
+    res.layouts.push_back(std::move(lr));
+  }
   return res;
+}
+
+const char* planar_reading_text(PlanarReading r) {
+  switch (r) {
+  case PlanarReading::readable: return "allowed, read by a planar bar";
+  case PlanarReading::not_readable: return "allowed, not readable in a planar bar";
+  case PlanarReading::forbidden: return "forbidden";
+  case PlanarReading::not_a_bar_part: return "";
+  }
+  return "";
 }
 
 } // namespace ts

@@ -4,6 +4,8 @@
 // variants of the lowering.
 #pragma once
 
+#include "geometry/layout_design.hpp"
+#include "geometry/sample_frame.hpp"
 #include "group/identify.hpp"
 #include "lowering/domains.hpp"
 #include "scenario/scenario.hpp"
@@ -24,12 +26,38 @@ struct ChainStep {
   std::vector<std::string> lost; // operations the step removed (crystal-frame symbols)
 };
 
+// What a planar Hall bar can do with an allowed part.
+enum class PlanarReading { not_a_bar_part, forbidden, readable, not_readable };
+const char* planar_reading_text(PlanarReading r);
+
 struct PartForms {
   std::string response_id, response_name, part_label;
+  const ResponsePart* catalogue_part = nullptr; // null for an extra tensor
   TensorSpec spec;
   std::optional<TensorSpec> excluded; // a piece the response does not see (counts subtract it)
   std::vector<AllowedForm> forms;     // one per chain step, in the sample frame
   std::vector<int> counts;            // independent components the response sees, per step
+  // An expansion in B (or M) is evaluated without the steps that apply that
+  // field (or moment): the field enters through its powers, not twice.
+  std::vector<bool> field_step_skipped; // per step: this step's field was not applied to this part
+  std::vector<PlanarReading> planar;    // per step, for a general planar bar (current and field free)
+};
+
+// The signals of one bar: one entry per bar part of the requested responses.
+struct BarPartSignal {
+  std::size_t part = 0; // index into parts
+  PartSignal signal;
+};
+
+struct BarResult {
+  BarMeasurement measurement;
+  std::vector<BarPartSignal> signals;
+};
+
+struct LayoutResult {
+  LayoutSpec spec;
+  std::vector<std::size_t> parts; // index into parts, one per design
+  std::vector<LayoutDesign> designs;
 };
 
 // A relation C = factor·anchor of the previous step that a lowering broke.
@@ -60,11 +88,16 @@ struct ScenarioResult {
   Scenario scenario;
   std::string parent_note;   // e.g. "m-3m taken as non-magnetic: m-3m1'"
   Frame frame;
+  SampleFrame sample;
+  std::string system;           // crystal system of the parent
+  LatticeMetric metric;         // as given, or from the structure's cell
   std::array<std::string, 3> frame_labels;
   std::vector<ChainStep> chain;
   std::vector<PartForms> parts;
   std::vector<StepChange> changes;
   std::vector<DomainReport> domains;
+  std::vector<BarResult> bars;
+  std::vector<LayoutResult> layouts;
 };
 
 ScenarioResult run_scenario(const Scenario& scenario);

@@ -1,0 +1,363 @@
+#include "report/bar_report.hpp"
+
+#include "core/text.hpp"
+#include "geometry/signal_expression.hpp"
+#include "report/expression_text.hpp"
+
+#include <map>
+#include <set>
+#include <sstream>
+
+namespace ts {
+
+namespace {
+
+TextStyle style_of(Format f) { return f == Format::latex ? TextStyle::latex : TextStyle::plain; }
+
+std::string math(const std::string& s, Format f) { return f == Format::latex ? "$" + s + "$" : s; }
+
+std::string line(Format f) { return f == Format::latex ? "\\\\\n" : "\n"; }
+std::string bullet(Format f) { return f == Format::markdown ? "- " : (f == Format::latex ? "" : "  "); }
+
+std::string heading(const std::string& s, Format f, int level) {
+  if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
+  if (f == Format::latex) return std::string(level <= 2 ? "\\subsection*{" : "\\subsubsection*{") + latex_escape(s) + "}\n";
+  return s + "\n";
+}
+
+std::string function_text(const FourierTerm& t, Format f) {
+  return f == Format::latex ? "$" + angle_function_text(t, true) + "$" : angle_function_text(t, false);
+}
+
+std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, Format f) {
+  if (terms.empty()) return f == Format::latex ? "$0$" : "0";
+  std::vector<std::string> parts;
+  for (const auto& t : terms) {
+    std::string c = combination_text(form, t.coefficient, style_of(f));
+    bool single = t.coefficient.size() == 1;
+    std::string fn = angle_function_text(t, f == Format::latex);
+    if (fn == "1") parts.push_back(single ? c : "(" + c + ")");
+    else parts.push_back((single ? c : "(" + c + ")") + (f == Format::latex ? " " : "*") + fn);
+  }
+  std::string s;
+  for (const auto& p : parts) {
+    if (s.empty()) s = p;
+    else if (p[0] == '-') s += " - " + p.substr(1);
+    else s += " + " + p;
+  }
+  return f == Format::latex ? "$" + s + "$" : s;
+}
+
+std::string part_title(const ScenarioResult& r, std::size_t k) {
+  const PartForms& p = r.parts[k];
+  return p.response_name + " [" + p.response_id + "]: " + p.part_label;
+}
+
+std::string order_text(const PartSignal& ps) {
+  std::string s = "order I^" + std::to_string(ps.current_order);
+  if (ps.field_order > 0) s += ", " + ps.field_role + "^" + std::to_string(ps.field_order);
+  if (ps.field_order % 2 == 1)
+    s += " (odd in " + ps.field_role + ": antisymmetrise the readings in ±" + ps.field_role + ")";
+  else if (ps.field_order > 0)
+    s += " (even in " + ps.field_role + ": symmetrise in ±" + ps.field_role + ")";
+  return s;
+}
+
+std::string harmonic_name(int k) { return k == 0 ? "DC" : std::to_string(k) + "ω"; }
+
+std::string factor_text(const Surd& s, int n, Format f) {
+  if (s.is_zero()) return "0";
+  std::string power = n == 1 ? "" : "^" + std::to_string(n);
+  std::string rn = f == Format::latex ? "R_" + std::to_string(n) + " I_\\mathrm{rms}" + power
+                                      : "R_" + std::to_string(n) + " I_rms" + power;
+  std::string c;
+  if (s == Surd(Rational(1))) c = "";
+  else if (s == Surd(Rational(-1))) c = "-";
+  else c = (s.terms().size() == 1 ? surd_text(s, style_of(f)) : "(" + surd_text(s, style_of(f)) + ")") + " ";
+  return math(c + rn, f);
+}
+
+std::string readings_text(const PartSignal& ps, Format f) {
+  std::vector<std::string> out;
+  for (const auto& h : ps.harmonics) {
+    if (h.harmonic == 0) out.push_back("DC " + factor_text(h.x, ps.current_order, f));
+    else
+      out.push_back(harmonic_name(h.harmonic) + " X = " + factor_text(h.x, ps.current_order, f) +
+                    ", Y = " + factor_text(h.y, ps.current_order, f));
+  }
+  return join(out, "; ");
+}
+
+std::string waveform_text(const BarMeasurement& m, Format f) {
+  if (m.waveform == Waveform::sine)
+    return "I = √2 I_rms sin ωt; lock-in reference sin(nωt): a reading V_n(t) = √2 V_rms sin(nωt + θ) gives "
+           "X = V_rms cos θ, Y = V_rms sin θ";
+  (void)f;
+  return "I = √2 I_rms cos ωt; lock-in reference cos(nωt): a reading V_n(t) = √2 V_rms cos(nωt + θ) gives "
+         "X = V_rms cos θ, Y = V_rms sin θ";
+}
+
+std::string zero_text(const std::vector<int>& z) {
+  if (z.empty()) return "";
+  if (z.size() == 24) return "every azimuth";
+  std::vector<std::string> s;
+  for (int d : z) s.push_back(std::to_string(d) + "°");
+  return "φ = " + join(s, ", ");
+}
+
+// Which Fourier terms a probe shows in which part: terms seen in one part only tell it apart.
+std::string separation_text(const ScenarioResult& r, const BarResult& b, Probe probe, int order, Format f) {
+  std::map<std::string, std::vector<std::string>> who;
+  std::vector<std::string> names;
+  for (const auto& s : b.signals) {
+    if (s.signal.current_order != order) continue;
+    const ProbeSignal& p = probe == Probe::longitudinal ? s.signal.longitudinal : s.signal.transverse;
+    if (!p.reads()) continue;
+    std::string name = r.parts[s.part].response_id + " / " + r.parts[s.part].part_label;
+    names.push_back(name);
+    for (const auto& t : p.terms) {
+      auto& v = who[function_text(t, f)];
+      if (v.empty() || v.back() != name) v.push_back(name);
+    }
+  }
+  std::set<std::string> distinct(names.begin(), names.end());
+  if (distinct.size() < 2) return "";
+  std::vector<std::vector<std::string>> rows;
+  for (const auto& [fn, v] : who) rows.push_back({fn, join(v, "; ")});
+  return grid({"angle function", "parts that show it"}, rows, f);
+}
+
+} // namespace
+
+std::string write_bars(const ScenarioResult& r, Format f) {
+  if (r.bars.empty()) return {};
+  std::ostringstream os;
+  os << heading("Hall bars", f, 2);
+  os << bullet(f) << "probes: V_∥ = L u·E (upstream minus downstream contact), V_⊥ = w v·E with v = n × u "
+     << "(the contact at -v minus the one at +v); u at azimuth φ from sample x, counterclockwise seen from +n" << line(f);
+  os << bullet(f) << "a bar driven by a current reads resistivity-type tensors (E = rho·j + rho^(2):jj + ...): "
+     << "parts written for a driving field (j = sigma·E ...) are read through E^(n) = -rho0^(n+1) sigma^(n) j^n, "
+     << "to leading order for an isotropic rho0 and a small Hall angle; a low-symmetry film needs its full in-plane "
+     << "tensor (two bar orientations) for the conversion" << line(f);
+  os << bullet(f) << "V = R_n I^n for the part of order n, with j = I/(w t) and R_n = (L or w) S(angles)/(w t)^n" << line(f)
+     << "\n";
+  for (const auto& b : r.bars) {
+    const BarMeasurement& m = b.measurement;
+    os << heading(m.name + ": current " + m.current_label + "; field " +
+                      (m.field_label.empty() ? field_geometry_name(m.field) : m.field_label),
+                  f, 3);
+    os << bullet(f) << "drive: " << waveform_text(m, f) << line(f);
+    if (m.current_rms && m.length && m.width && m.thickness) {
+      char buf[160];
+      std::snprintf(buf, sizeof buf, "bar: I_rms = %g A, L = %g m, w = %g m, t = %g m: j_rms = %g A/m^2", *m.current_rms,
+                    *m.length, *m.width, *m.thickness, *m.current_rms / (*m.width * *m.thickness));
+      os << bullet(f) << buf << line(f);
+    }
+    os << "\n";
+    for (const auto& s : b.signals) {
+      const PartSignal& ps = s.signal;
+      const PartForms& pf = r.parts[s.part];
+      const AllowedForm& form = pf.forms.back();
+      os << (f == Format::markdown ? "**" : "") << part_title(r, s.part) << (f == Format::markdown ? "**" : "") << line(f);
+      os << bullet(f) << order_text(ps) << "; " << (ps.part->drive == DriveKind::current ? "answers the driven current (E = rho·j ...)" : "answers a driving field (j = sigma·E ...): read through -rho0^(n+1)") << line(f);
+      if (pf.counts.back() == 0) {
+        os << bullet(f) << "forbidden in the sample's group: both probes read zero" << line(f) << "\n";
+        continue;
+      }
+      if (ps.needs_field) {
+        os << bullet(f) << "needs a field or magnetisation direction (this bar has none)" << line(f) << "\n";
+        continue;
+      }
+      if (!ps.reads()) {
+        os << bullet(f) << "allowed, not readable in this bar: both probes read zero for every parameter value "
+           << "(the allowed components lie out of the plane or need another field direction)" << line(f) << "\n";
+        continue;
+      }
+      os << bullet(f) << "lock-in readings: " << readings_text(ps, f) << line(f);
+      ExpressionSymbols sy;
+      for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
+        std::string name = p->probe == Probe::longitudinal ? "longitudinal S_∥" : "transverse S_⊥";
+        os << bullet(f) << name << " = " << series_text(p->terms, form, f) << line(f);
+        if (p->reads()) {
+          GiNaC::ex e = probe_coefficient_ex(ps, *p, form, sy);
+          std::string rn = std::string("R_") + std::to_string(ps.current_order) +
+                           (p->probe == Probe::longitudinal ? "(∥)" : "(⊥)");
+          std::string n = std::to_string(ps.current_order);
+          std::string pre = std::string(ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(ps.current_order + 1) + " " : "") +
+                            (p->probe == Probe::longitudinal ? "L" : "w") + "/(w t)" + (ps.current_order == 1 ? "" : "^" + n);
+          os << bullet(f) << "  " << rn << " = "
+             << (f == Format::latex ? "$" + ex_latex(e) + "$" : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
+             << line(f);
+        }
+        std::string z = zero_text(p->zero_azimuths);
+        if (p->reads() && !z.empty()) os << bullet(f) << "  reads zero for every parameter value at " << z << line(f);
+      }
+      if (ps.hall_split && ps.transverse.reads()) {
+        os << bullet(f) << "Hall test, S_⊥ = S_∥'/" << (ps.current_order + 1) << " + H: gradient part "
+           << series_text(ps.transverse.gradient_terms, form, f) << "; dissipationless Hall part H = "
+           << series_text(ps.transverse.hall_terms, form, f)
+           << (ps.transverse.hall_terms.empty() ? " (the transverse signal follows from the longitudinal one)" : "")
+           << line(f);
+      }
+      os << "\n";
+    }
+    std::set<int> orders;
+    for (const auto& s : b.signals) orders.insert(s.signal.current_order);
+    for (int n : orders)
+      for (Probe p : {Probe::longitudinal, Probe::transverse}) {
+        std::string t = separation_text(r, b, p, n, f);
+        if (t.empty()) continue;
+        os << (f == Format::markdown ? "*" : "") << "order I^" << n << ", " << probe_name(p)
+           << ": Fourier terms that tell the parts apart" << (f == Format::markdown ? "*" : "") << line(f) << "\n"
+           << t << "\n";
+      }
+  }
+  return os.str();
+}
+
+std::string write_layouts(const ScenarioResult& r, Format f) {
+  if (r.layouts.empty()) return {};
+  std::ostringstream os;
+  os << heading("bar layout", f, 2);
+  for (const auto& l : r.layouts) {
+    for (std::size_t i = 0; i < l.designs.size(); ++i) {
+      const LayoutDesign& d = l.designs[i];
+      const PartForms& pf = r.parts[l.parts[i]];
+      const AllowedForm& form = pf.forms.back();
+      os << heading(part_title(r, l.parts[i]) + " at " + harmonic_name(l.spec.harmonic), f, 3);
+      os << bullet(f) << d.candidates.size() << " candidate bar directions; field per bar: " << join(d.fields, ", ")
+         << line(f);
+      os << bullet(f) << d.parameters << " independent parameters; " << d.rank_all
+         << " can be determined from planar bars";
+      if (!d.unreadable.empty()) os << " (no bar reads " << join(d.unreadable, ", ") << ")";
+      if (d.rank_all < d.parameters - static_cast<int>(d.unreadable.size()))
+        os << "; " << (d.parameters - static_cast<int>(d.unreadable.size()) - d.rank_all)
+           << " further combination(s) cannot be separated by these candidates";
+      os << line(f);
+      if (d.chosen.empty()) {
+        os << bullet(f) << "no bar reads this part" << line(f) << "\n";
+        continue;
+      }
+      char cond[64];
+      std::snprintf(cond, sizeof cond, "%.3g", d.condition);
+      os << bullet(f) << "design: " << d.chosen.size() << " bar" << (d.chosen.size() == 1 ? "" : "s")
+         << (d.exhaustive ? " (the fewest: every smaller set was tried)" : " (greedy choice)")
+         << ", rank " << d.rank_chosen << ", condition number " << cond
+         << " (rank from Eigen's SVD, singular values below 1e-9 of the largest count as zero)" << line(f) << "\n";
+      std::vector<std::vector<std::string>> rows;
+      char letter = 'A';
+      for (std::size_t c : d.chosen) {
+        const LayoutCandidate& cand = d.candidates[c];
+        for (const auto& row : d.rows) {
+          if (row.candidate != c) continue;
+          Combination comb;
+          for (int j = 0; j < d.parameters; ++j)
+            if (!row.coefficients[j].is_zero()) comb.push_back({j, row.coefficients[j]});
+          std::string meas = combination_text(form, comb, style_of(f));
+          rows.push_back({std::string(1, letter), cand.label, cand.azimuth,
+                          row.probe == Probe::longitudinal ? "∥" : "⊥", row.field, math(meas, f)});
+        }
+        ++letter;
+      }
+      os << grid({"bar", "current along", "angle from x", "probe", "field", "reads (per j^n, sample frame)"}, rows, f)
+         << "\n";
+    }
+  }
+  return os.str();
+}
+
+toml::array bars_json(const ScenarioResult& r) {
+  toml::array out;
+  auto terms_json = [](const std::vector<FourierTerm>& terms, const AllowedForm& form) {
+    toml::array a;
+    for (const auto& t : terms)
+      a.push_back(toml::table{{"function", angle_function_text(t, false)},
+                              {"coefficient", combination_text(form, t.coefficient, TextStyle::plain)}});
+    return a;
+  };
+  for (const auto& b : r.bars) {
+    toml::array sigs;
+    for (const auto& s : b.signals) {
+      const PartSignal& ps = s.signal;
+      const AllowedForm& form = r.parts[s.part].forms.back();
+      toml::table t{{"response", r.parts[s.part].response_id},
+                    {"part", r.parts[s.part].part_label},
+                    {"current_order", ps.current_order},
+                    {"field_order", ps.field_order},
+                    {"field_role", ps.field_role},
+                    {"drive", drive_kind_name(ps.part->drive)},
+                    {"needs_field", ps.needs_field},
+                    {"reads", ps.reads()}};
+      toml::array harm;
+      for (const auto& h : ps.harmonics)
+        harm.push_back(toml::table{{"harmonic", h.harmonic},
+                                   {"x_factor", surd_text(h.x)},
+                                   {"y_factor", surd_text(h.y)}});
+      t.insert("lock_in", harm);
+      ExpressionSymbols sy;
+      for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
+        toml::array zeros;
+        for (int z : p->zero_azimuths) zeros.push_back(z);
+        toml::table pt{{"terms", terms_json(p->terms, form)}, {"zero_azimuths_deg", zeros}};
+        if (p->reads()) {
+          GiNaC::ex e = probe_coefficient_ex(ps, *p, form, sy);
+          pt.insert("R_n", ex_text(e));
+          pt.insert("R_n_latex", ex_latex(e));
+        }
+        if (p->probe == Probe::transverse && ps.hall_split) {
+          pt.insert("gradient_terms", terms_json(p->gradient_terms, form));
+          pt.insert("hall_terms", terms_json(p->hall_terms, form));
+        }
+        t.insert(p->probe == Probe::longitudinal ? "longitudinal" : "transverse", pt);
+      }
+      sigs.push_back(t);
+    }
+    const BarMeasurement& m = b.measurement;
+    out.push_back(toml::table{{"name", m.name},
+                              {"current", m.current_label},
+                              {"field", field_geometry_name(m.field)},
+                              {"field_label", m.field_label},
+                              {"waveform", m.waveform == Waveform::sine ? "sine" : "cosine"},
+                              {"signals", sigs}});
+  }
+  return out;
+}
+
+toml::array layouts_json(const ScenarioResult& r) {
+  toml::array out;
+  for (const auto& l : r.layouts)
+    for (std::size_t i = 0; i < l.designs.size(); ++i) {
+      const LayoutDesign& d = l.designs[i];
+      const AllowedForm& form = r.parts[l.parts[i]].forms.back();
+      toml::array bars, unread;
+      for (const auto& u : d.unreadable) unread.push_back(u);
+      for (std::size_t c : d.chosen) {
+        toml::array reads;
+        for (const auto& row : d.rows) {
+          if (row.candidate != c) continue;
+          Combination comb;
+          for (int j = 0; j < d.parameters; ++j)
+            if (!row.coefficients[j].is_zero()) comb.push_back({j, row.coefficients[j]});
+          reads.push_back(toml::table{{"probe", row.probe == Probe::longitudinal ? "longitudinal" : "transverse"},
+                                      {"field", row.field},
+                                      {"reads", combination_text(form, comb, TextStyle::plain)}});
+        }
+        bars.push_back(toml::table{{"current", d.candidates[c].label},
+                                   {"azimuth", d.candidates[c].azimuth},
+                                   {"readings", reads}});
+      }
+      out.push_back(toml::table{{"response", r.parts[l.parts[i]].response_id},
+                                {"part", r.parts[l.parts[i]].part_label},
+                                {"harmonic", l.spec.harmonic},
+                                {"parameters", d.parameters},
+                                {"rank", d.rank_all},
+                                {"unreadable", unread},
+                                {"candidates", static_cast<std::int64_t>(d.candidates.size())},
+                                {"exhaustive", d.exhaustive},
+                                {"condition_number", d.condition},
+                                {"bars", bars}});
+    }
+  return out;
+}
+
+} // namespace ts
