@@ -53,7 +53,8 @@ TEST_CASE("the one-off sample command builds the same scenario as a file", "[exa
                     a.string() + "'";
   std::string sample = "'" TENSORSIEVE_BINARY "' sample m-3m --a 3.95 --cut '(001)' --x '[100]' --lower 'strain:[100]' "
                        "--lower 'magnetic-field:[100]' --response anomalous-hall --response second-order-conductivity "
-                       "--domains -f json -o '" + b.string() + "'";
+                       "--response magnetochiral-anisotropy --bar 'rotating:[100]' --layout second-order-conductivity:2 "
+                       "--rosette 0,45,90,135 --domains -f json -o '" + b.string() + "'";
   REQUIRE(std::system(run.c_str()) == 0);
   REQUIRE(std::system(sample.c_str()) == 0);
   std::string ja = slurp(a), jb = slurp(b);

@@ -54,13 +54,16 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--bar", o->bars,
                   "a Hall bar CURRENT[:FIELD] (repeatable): CURRENT is rotating, an in-plane [uvw] or an angle from x "
                   "(multiple of 15°); FIELD is none, in-plane, normal, any, along-current, across-current, [uvw] or "
-                  "in-plane:ANGLE (default any)");
+                  "in-plane:ANGLE (default any)")
+      ->allow_extra_args(false); // keep "[100]" whole: CLI11 reads a bracketed value of a vector option as a list
   cmd->add_option("--waveform", o->waveform, "drive waveform of the bars: sine (default) or cosine");
   cmd->add_option("--layout", o->layouts, "design the bars to pattern for RESPONSE[:HARMONIC] (repeatable)");
   cmd->add_option("--rosette", o->rosette, "candidate bar angles from x in degrees for --layout, e.g. 0,30,45,90")
       ->delimiter(',');
-  cmd->add_option("--layout-directions", o->layout_directions, "candidate in-plane bar directions for --layout")
-      ->delimiter(',');
+  cmd->add_option("--layout-directions", o->layout_directions,
+                  "candidate in-plane bar directions for --layout, e.g. [100],[110] (indices with commas: repeat the option)")
+      ->allow_extra_args(false)
+      ->delimiter(';');
   cmd->add_option("--layout-fields", o->layout_fields,
                   "field geometries each candidate bar is measured in (default along-current,across-current,normal)")
       ->delimiter(',');

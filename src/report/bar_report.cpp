@@ -14,6 +14,9 @@ namespace {
 
 TextStyle style_of(Format f) { return f == Format::latex ? TextStyle::latex : TextStyle::plain; }
 
+// Prose in LaTeX text mode: _ ^ & ... escaped; the Unicode symbols become commands in finish().
+std::string prose(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
+
 std::string math(const std::string& s, Format f) { return f == Format::latex ? "$" + s + "$" : s; }
 
 std::string line(Format f) { return f == Format::latex ? "\\\\\n" : "\n"; }
@@ -123,7 +126,7 @@ std::string separation_text(const ScenarioResult& r, const BarResult& b, Probe p
   std::set<std::string> distinct(names.begin(), names.end());
   if (distinct.size() < 2) return "";
   std::vector<std::vector<std::string>> rows;
-  for (const auto& [fn, v] : who) rows.push_back({fn, join(v, "; ")});
+  for (const auto& [fn, v] : who) rows.push_back({fn, prose(join(v, "; "), f)});
   return grid({"angle function", "parts that show it"}, rows, f);
 }
 
@@ -133,33 +136,42 @@ std::string write_bars(const ScenarioResult& r, Format f) {
   if (r.bars.empty()) return {};
   std::ostringstream os;
   os << heading("Hall bars", f, 2);
-  os << bullet(f) << "probes: V_∥ = L u·E (upstream minus downstream contact), V_⊥ = w v·E with v = n × u "
-     << "(the contact at -v minus the one at +v); u at azimuth φ from sample x, counterclockwise seen from +n" << line(f);
-  os << bullet(f) << "a bar driven by a current reads resistivity-type tensors (E = rho·j + rho^(2):jj + ...): "
-     << "parts written for a driving field (j = sigma·E ...) are read through E^(n) = -rho0^(n+1) sigma^(n) j^n, "
-     << "to leading order for an isotropic rho0 and a small Hall angle; a low-symmetry film needs its full in-plane "
-     << "tensor (two bar orientations) for the conversion" << line(f);
-  os << bullet(f) << "V = R_n I^n for the part of order n, with j = I/(w t) and R_n = (L or w) S(angles)/(w t)^n" << line(f)
-     << "\n";
+  os << bullet(f) << prose("probes: V_∥ = L u·E (upstream minus downstream contact), V_⊥ = w v·E with v = n × u "
+                           "(the contact at -v minus the one at +v); u at azimuth φ from sample x, counterclockwise "
+                           "seen from +n", f) << line(f);
+  os << bullet(f) << prose("a bar driven by a current reads resistivity-type tensors (E = rho·j + rho^(2):jj + ...): "
+                           "parts written for a driving field (j = sigma·E ...) are read through E^(n) = "
+                           "-rho0^(n+1) sigma^(n) j^n, to leading order for an isotropic rho0 and a small Hall angle; "
+                           "a low-symmetry film needs its full in-plane tensor (two bar orientations) for the "
+                           "conversion", f) << line(f);
+  os << bullet(f) << prose("V = R_n I^n for the part of order n, with j = I/(w t) and R_n = (L or w) S(angles)/(w t)^n", f)
+     << line(f) << "\n";
   for (const auto& b : r.bars) {
     const BarMeasurement& m = b.measurement;
     os << heading(m.name + ": current " + m.current_label + "; field " +
                       (m.field_label.empty() ? field_geometry_name(m.field) : m.field_label),
                   f, 3);
-    os << bullet(f) << "drive: " << waveform_text(m, f) << line(f);
+    os << bullet(f) << prose("drive: " + waveform_text(m, f), f) << line(f);
     if (m.current_rms && m.length && m.width && m.thickness) {
       char buf[160];
       std::snprintf(buf, sizeof buf, "bar: I_rms = %g A, L = %g m, w = %g m, t = %g m: j_rms = %g A/m^2", *m.current_rms,
                     *m.length, *m.width, *m.thickness, *m.current_rms / (*m.width * *m.thickness));
-      os << bullet(f) << buf << line(f);
+      os << bullet(f) << prose(buf, f) << line(f);
     }
     os << "\n";
     for (const auto& s : b.signals) {
       const PartSignal& ps = s.signal;
       const PartForms& pf = r.parts[s.part];
       const AllowedForm& form = pf.forms.back();
-      os << (f == Format::markdown ? "**" : "") << part_title(r, s.part) << (f == Format::markdown ? "**" : "") << line(f);
-      os << bullet(f) << order_text(ps) << "; " << (ps.part->drive == DriveKind::current ? "answers the driven current (E = rho·j ...)" : "answers a driving field (j = sigma·E ...): read through -rho0^(n+1)") << line(f);
+      os << (f == Format::markdown ? "**" : "") << prose(part_title(r, s.part), f) << (f == Format::markdown ? "**" : "")
+         << line(f);
+      os << bullet(f)
+         << prose(order_text(ps) + "; " +
+                      (ps.part->drive == DriveKind::current ? "answers the driven current (E = rho·j ...)"
+                                                            : "answers a driving field (j = sigma·E ...): read through "
+                                                              "-rho0^(n+1)"),
+                  f)
+         << line(f);
       if (pf.counts.back() == 0) {
         os << bullet(f) << "forbidden in the sample's group: both probes read zero" << line(f) << "\n";
         continue;
@@ -177,7 +189,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
       ExpressionSymbols sy;
       for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
         std::string name = p->probe == Probe::longitudinal ? "longitudinal S_∥" : "transverse S_⊥";
-        os << bullet(f) << name << " = " << series_text(p->terms, form, f) << line(f);
+        os << bullet(f) << prose(name, f) << " = " << series_text(p->terms, form, f) << line(f);
         if (p->reads()) {
           GiNaC::ex e = probe_coefficient_ex(ps, *p, form, sy);
           std::string rn = std::string("R_") + std::to_string(ps.current_order) +
@@ -185,7 +197,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
           std::string n = std::to_string(ps.current_order);
           std::string pre = std::string(ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(ps.current_order + 1) + " " : "") +
                             (p->probe == Probe::longitudinal ? "L" : "w") + "/(w t)" + (ps.current_order == 1 ? "" : "^" + n);
-          os << bullet(f) << "  " << rn << " = "
+          os << bullet(f) << "  " << prose(rn, f) << " = "
              << (f == Format::latex ? "$" + ex_latex(e) + "$" : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
              << line(f);
         }
@@ -193,7 +205,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         if (p->reads() && !z.empty()) os << bullet(f) << "  reads zero for every parameter value at " << z << line(f);
       }
       if (ps.hall_split && ps.transverse.reads()) {
-        os << bullet(f) << "Hall test, S_⊥ = S_∥'/" << (ps.current_order + 1) << " + H: gradient part "
+        os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.current_order + 1) + " + H: gradient part ", f)
            << series_text(ps.transverse.gradient_terms, form, f) << "; dissipationless Hall part H = "
            << series_text(ps.transverse.hall_terms, form, f)
            << (ps.transverse.hall_terms.empty() ? " (the transverse signal follows from the longitudinal one)" : "")
@@ -207,7 +219,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
       for (Probe p : {Probe::longitudinal, Probe::transverse}) {
         std::string t = separation_text(r, b, p, n, f);
         if (t.empty()) continue;
-        os << (f == Format::markdown ? "*" : "") << "order I^" << n << ", " << probe_name(p)
+        os << (f == Format::markdown ? "*" : "") << prose("order I^" + std::to_string(n) + ", " + probe_name(p), f)
            << ": Fourier terms that tell the parts apart" << (f == Format::markdown ? "*" : "") << line(f) << "\n"
            << t << "\n";
       }
@@ -229,7 +241,7 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
          << line(f);
       os << bullet(f) << d.parameters << " independent parameters; " << d.rank_all
          << " can be determined from planar bars";
-      if (!d.unreadable.empty()) os << " (no bar reads " << join(d.unreadable, ", ") << ")";
+      if (!d.unreadable.empty()) os << " (no bar reads " << prose(join(d.unreadable, ", "), f) << ")";
       if (d.rank_all < d.parameters - static_cast<int>(d.unreadable.size()))
         os << "; " << (d.parameters - static_cast<int>(d.unreadable.size()) - d.rank_all)
            << " further combination(s) cannot be separated by these candidates";
@@ -255,7 +267,7 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
             if (!row.coefficients[j].is_zero()) comb.push_back({j, row.coefficients[j]});
           std::string meas = combination_text(form, comb, style_of(f));
           rows.push_back({std::string(1, letter), cand.label, cand.azimuth,
-                          row.probe == Probe::longitudinal ? "∥" : "⊥", row.field, math(meas, f)});
+                          row.probe == Probe::longitudinal ? "∥" : "⊥", prose(row.field, f), math(meas, f)});
         }
         ++letter;
       }

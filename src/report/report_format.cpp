@@ -72,7 +72,7 @@ std::string finish(std::string text, Format f) {
       {"α", "\\ensuremath{\\alpha}"},    {"γ", "\\ensuremath{\\gamma}"},   {"∇", "\\ensuremath{\\nabla}"},
       {"√", "\\ensuremath{\\surd}"},     {"≥", "\\ensuremath{\\geq}"},     {"≤", "\\ensuremath{\\leq}"},
       {"±", "\\ensuremath{\\pm}"},       {"′", "'"},                         {"ᵀ", "\\ensuremath{^{T}}"},
-      {"²", "\\ensuremath{^{2}}"},         {"³", "\\ensuremath{^{3}}"},        {"⁰", "\\ensuremath{^{0}}"},
+      {"°", "\\ensuremath{^{\\circ}}"},   {"²", "\\ensuremath{^{2}}"},         {"³", "\\ensuremath{^{3}}"},        {"⁰", "\\ensuremath{^{0}}"},
       {"–", "--"},                           {"—", "---"},                       {"Å", "\\AA{}"},
       {"…", "\\ldots{}"},                  {"−", "-"}};
   for (const auto& [from, to] : map) {

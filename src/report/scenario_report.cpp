@@ -230,7 +230,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       for (std::size_t v = 0; v < d.analysis.variants.size(); ++v)
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
                          tensor_components_text(d.analysis.variants[v].tensor, d.form, f)});
-      os << grid({"variant", "g_i", "components (sample frame)"}, vrows, f);
+      os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, vrows, f);
       os << "\n" << (f == Format::markdown ? "**" : "") << "average over equal populations:" << (f == Format::markdown ? "** " : " ")
          << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
     }

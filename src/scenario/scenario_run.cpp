@@ -275,9 +275,11 @@ ScenarioResult run_scenario(const Scenario& sc) {
     }
     return std::make_pair(groups, skipped);
   };
+  // A drive index B or M (not the response index: a moment as the response is no expansion).
   auto has_role = [](const PartForms& p, const char* role) {
-    return p.catalogue_part &&
-           std::find(p.catalogue_part->indices.begin(), p.catalogue_part->indices.end(), role) != p.catalogue_part->indices.end();
+    if (!p.catalogue_part || p.catalogue_part->indices.size() < 2) return false;
+    const auto& ix = p.catalogue_part->indices;
+    return std::find(ix.begin() + 1, ix.end(), role) != ix.end();
   };
   bool any_field_step = std::any_of(sc.steps.begin(), sc.steps.end(), [](const LoweringStep& s) {
     return s.kind == LoweringKind::magnetic_field || s.kind == LoweringKind::moment;
