@@ -23,6 +23,9 @@
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
 #include "geometry/sample_frame.hpp"
+#include "scenario/scenario_run.hpp"
+
+#include <numeric>
 #include "group/group_catalogue.hpp"
 #include "tensor/allowed_form.hpp"
 
@@ -325,6 +328,46 @@ int run(const Args& args) {
       time_probe_form(R, args.probe_timeout, "surds: " + std::string(s) + " in m-3m, z || [111], x || [1-10]", spec,
                       [&] { return allowed_form(spec, fresh(cubic.group), frame); });
     }
+  }
+
+  // ---- Hall bars: signals and a layout design over 26 directions and 12 responses ---------
+  {
+    std::printf("\n");
+    Scenario sc;
+    sc.group = "m-3m";
+    sc.cut = "(001)";
+    LoweringStep strain;
+    strain.kind = LoweringKind::strain;
+    strain.along = "[120]";
+    sc.steps.push_back(strain); // a low-symmetry film: many parameters for every response
+    sc.responses = {"conductivity", "resistivity", "ordinary-hall", "anomalous-hall", "magnetoconductivity-linear",
+                    "magnetoconductivity-quadratic", "anisotropic-magnetoresistance", "in-plane-hall",
+                    "magnetochiral-anisotropy", "second-order-conductivity", "berry-curvature-dipole",
+                    "third-order-conductivity"};
+    std::vector<std::string> directions;
+    for (long u = 0; u <= 5 && directions.size() < 26; ++u)
+      for (long v = -5; v <= 5 && directions.size() < 26; ++v)
+        if (std::gcd(u, std::labs(v)) == 1 && (u > 0 || v > 0)) directions.push_back(direction_str({u, v, 0}));
+    BarSpec bar;
+    bar.current = "rotating";
+    bar.field = "any";
+    Scenario with_bar = sc;
+    with_bar.bars.push_back(bar);
+    Timing t = time_repeated(R, [&] { (void)run_scenario(with_bar); });
+    print_figure("bars: 12 responses, one rotating bar, field in any direction", duration_text(t.median));
+    Scenario with_layout = sc;
+    for (const auto& id : sc.responses) {
+      LayoutSpec l;
+      l.response = id;
+      l.harmonic = id == "second-order-conductivity" || id == "magnetochiral-anisotropy" ? 2
+                   : id == "third-order-conductivity" ? 3 : 1;
+      l.directions = directions;
+      l.fields = {"along-current", "across-current"};
+      with_layout.layouts.push_back(l);
+    }
+    Timing tl = time_repeated(R, [&] { (void)run_scenario(with_layout); });
+    print_figure("layout: 12 responses, 26 low-index directions, 2 field geometries", duration_text(tl.median), "< 1 s",
+                 verdict(tl.median < 1.0));
   }
 
   // ---- memory and summary ---------------------------------------------------------------
