@@ -1,6 +1,6 @@
 // tensorsieve run SCENARIO.toml | sample GROUP --cut ... --lower KIND:VALUE ...
 #include "cli/commands.hpp"
-#include "cli/frame_options.hpp"
+#include "cli/sample_options.hpp"
 #include "core/error.hpp"
 #include "report/scenario_report.hpp"
 
@@ -26,36 +26,17 @@ void setup_run(CLI::App& app) {
 void setup_sample(CLI::App& app) {
   struct Opts {
     OutputOptions out;
-    Scenario sc;
-    std::vector<std::string> lowerings;
-    std::string a, b, c;
-    bool colourless = false;
+    SampleOptions sample;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
-  cmd->add_option("group", o->sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')")->required();
-  cmd->add_option("--cut", o->sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
-  cmd->add_option("--x", o->sc.x, "in-plane direction for sample x");
-  cmd->add_option("--z", o->sc.z, "sample z for a bulk sample (no cut)");
-  cmd->add_flag("--equivalent-faces", o->sc.equivalent_faces, "free-standing slab with identical faces");
-  cmd->add_option("--lower", o->lowerings,
-                  "lowering step KIND:VALUE, in order: strain:[001], shear:[100],[010], polar:[110], "
-                  "electric-field:[001], moment:[001], magnetic-field:[1-10], current:[100], "
-                  "magnetic-group:4'/m'm'm, tilts:a0a0c-");
-  cmd->add_option("--response", o->sc.responses, "response id from `tensorsieve responses` (repeatable)");
-  cmd->add_option("--tensor", o->sc.tensors, "extra tensor spec (repeatable)");
-  cmd->add_option("--a", o->a, "lattice parameter a");
-  cmd->add_option("--b", o->b, "lattice parameter b");
-  cmd->add_option("--c", o->c, "lattice parameter c");
-  cmd->add_flag("--colourless", o->colourless, "take a group without primes literally, not as G1'");
-  cmd->add_flag("--domains", o->sc.domains, "orientation domains of the lowering and their average");
+  add_sample_options(*cmd, o->sample, true);
+  cmd->add_option("--response", o->sample.sc.responses, "response id from `tensorsieve responses` (repeatable)");
+  cmd->add_option("--tensor", o->sample.sc.tensors, "extra tensor spec (repeatable)");
+  cmd->add_flag("--domains", o->sample.sc.domains, "orientation domains of the lowering and their average");
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
-    Scenario sc = o->sc;
-    sc.assume_nonmagnetic = !o->colourless;
-    for (std::size_t i = 0; i < o->lowerings.size(); ++i)
-      sc.steps.push_back(parse_lowering_option(o->lowerings[i], "--lower " + o->lowerings[i]));
-    sc.metric = metric_option({"", "", o->a, o->b, o->c});
+    Scenario sc = scenario_from_options(o->sample);
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");

@@ -129,7 +129,8 @@ Scenario load_scenario(const std::string& path) {
   }
   Scenario sc;
   sc.source = path;
-  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report"}, path, "the scenario");
+  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "observation"}, path,
+             "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
@@ -206,9 +207,38 @@ Scenario load_scenario(const std::string& path) {
       sc.domains = *b;
     }
   }
-  if (sc.responses.empty() && sc.tensors.empty())
+  if (auto obs = root.get("observation")) {
+    auto arr = obs->as_array();
+    if (!arr) fail(ErrorKind::bad_file, "'observation' must be an array of tables [[observation]]", at(path, obs->source()));
+    for (auto& el : *arr) {
+      auto t = el.as_table();
+      if (!t) fail(ErrorKind::bad_file, "each [[observation]] entry must be a table", at(path, el.source()));
+      check_keys(*t, {"label", "response", "part", "tensor", "components", "type"}, path, "[[observation]]");
+      ObservationRequest o;
+      o.where = at(path, t->source());
+      o.label = get_string(*t, "label", path, false, "a string");
+      o.response = get_string(*t, "response", path, false, "a response id from `tensorsieve responses`");
+      o.tensor = get_string(*t, "tensor", path, false, "a tensor spec such as \"chi_abc: sym(abc)\"");
+      if (auto part = t->get("part")) {
+        auto n = part->value<std::int64_t>();
+        if (!n || *n < 1) fail(ErrorKind::bad_file, "'part' must be a part number 1, 2, ...", at(path, part->source()));
+        o.part = std::to_string(*n);
+      }
+      o.components = get_strings(*t, "components", path);
+      std::string type = get_string(*t, "type", path, false, "\"i\", \"c\" or \"either\"");
+      if (!type.empty()) o.parity = type;
+      if (o.response.empty() == o.tensor.empty())
+        fail(ErrorKind::bad_file, "an [[observation]] needs either 'response' or 'tensor'", o.where,
+             "response = \"second-order-conductivity\" or tensor = \"chi_abc: sym(abc)\"");
+      if (o.components.empty())
+        fail(ErrorKind::bad_file, "an [[observation]] needs 'components'", o.where, "components = [\"chi_xxx\"]");
+      sc.observations.push_back(o);
+    }
+  }
+  if (sc.responses.empty() && sc.tensors.empty() && sc.observations.empty())
     fail(ErrorKind::bad_file, "the scenario asks for no response", path,
-         "responses = [\"anomalous-hall\", ...] (see `tensorsieve responses`) or tensors = [\"V[V2]\"]");
+         "responses = [\"anomalous-hall\", ...] (see `tensorsieve responses`), tensors = [\"V[V2]\"] or an "
+         "[[observation]] table");
   return sc;
 }
 

@@ -26,6 +26,18 @@ struct LoweringStep {
   std::string where;  // file:line or option, for messages
 };
 
+// An observed signal for the inverse question (`tensorsieve observe`): the
+// components seen nonzero of a catalogue response part or of a tensor spec.
+struct ObservationRequest {
+  std::string label;
+  std::string response;                // catalogue id, or empty
+  std::string part;                    // 1-based part number of the response; empty: the part named like the components
+  std::string tensor;                  // tensor spec, or empty
+  std::vector<std::string> components; // sample-frame names such as chi_xxx
+  std::string parity = "either";       // i, c or either
+  std::string where;                   // file:line or option, for messages
+};
+
 struct Scenario {
   std::string title;
   std::string source = "command line";
@@ -40,6 +52,7 @@ struct Scenario {
   std::vector<std::string> responses; // catalogue ids
   std::vector<std::string> tensors;   // extra tensor specs
   bool domains = false;
+  std::vector<ObservationRequest> observations; // [[observation]] tables
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column

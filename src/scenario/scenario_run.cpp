@@ -150,13 +150,6 @@ Frame sample_frame(const Scenario& sc, const std::string& system, LatticeKind la
   return f;
 }
 
-std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
-  if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
-  for (const auto& cand : GroupCatalogue::builtin().groups())
-    if (cand.type_symbol == id.type->symbol && frame_carries(frame.axes, g, cand.group)) return cand.symbol;
-  return "";
-}
-
 PointGroup tilt_group(const std::string& glazer, const PointGroup& current, const std::string& where) {
   TiltedPerovskite tp = build_tilted_perovskite(parse_glazer_symbol(glazer));
   std::vector<Operation> ops;
@@ -258,6 +251,13 @@ StepChange compare(const AllowedForm& before, const AllowedForm& after) {
 }
 
 } // namespace
+
+std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
+  if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
+  for (const auto& cand : GroupCatalogue::builtin().groups())
+    if (cand.type_symbol == id.type->symbol && frame_carries(frame.axes, g, cand.group)) return cand.symbol;
+  return "";
+}
 
 ScenarioResult run_scenario(const Scenario& sc) {
   ScenarioResult res;

@@ -69,4 +69,7 @@ struct ScenarioResult {
 
 ScenarioResult run_scenario(const Scenario& scenario);
 
+// HM symbol of a tabulated setting whose axes are the sample frame's, else empty.
+std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame);
+
 } // namespace ts
