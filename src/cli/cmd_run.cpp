@@ -11,15 +11,18 @@ namespace ts::cli {
 void setup_run(CLI::App& app) {
   struct Opts {
     OutputOptions out;
-    std::string file;
+    std::string file, fractions;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses");
   cmd->add_option("scenario", o->file, "scenario TOML file (docs/scenarios.md)")->required();
+  add_fractions_option(*cmd, o->fractions);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     Format f = parse_format(o->out.format);
-    emit(o->out, write_scenario(run_scenario(load_scenario(o->file)), f));
+    Scenario sc = load_scenario(o->file);
+    apply_fractions_option(o->fractions, sc);
+    emit(o->out, write_scenario(run_scenario(sc), f));
   });
 }
 
@@ -27,6 +30,7 @@ void setup_sample(CLI::App& app) {
   struct Opts {
     OutputOptions out;
     SampleOptions sample;
+    std::string fractions;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
@@ -34,9 +38,11 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--response", o->sample.sc.responses, "response id from `tensorsieve responses` (repeatable)");
   cmd->add_option("--tensor", o->sample.sc.tensors, "extra tensor spec (repeatable)");
   cmd->add_flag("--domains", o->sample.sc.domains, "orientation domains of the lowering and their average");
+  add_fractions_option(*cmd, o->fractions);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     Scenario sc = scenario_from_options(o->sample);
+    apply_fractions_option(o->fractions, sc);
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");

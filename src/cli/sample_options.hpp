@@ -44,4 +44,26 @@ inline Scenario scenario_from_options(const SampleOptions& o) {
   return sc;
 }
 
+inline void add_fractions_option(CLI::App& cmd, std::string& fractions) {
+  cmd.add_option("--domain-fractions", fractions,
+                 "volume fractions of the domain variants, in the report's order, e.g. 0.75,0.25 or 2/3,1/3");
+}
+
+// The option replaces the fractions of a scenario file.
+inline void apply_fractions_option(const std::string& text, Scenario& sc) {
+  if (text.empty()) return;
+  sc.domain_fractions.clear();
+  sc.fractions_where = "--domain-fractions " + text;
+  std::size_t start = 0;
+  while (start <= text.size()) {
+    std::size_t comma = text.find(',', start);
+    std::string item = text.substr(start, comma == std::string::npos ? std::string::npos : comma - start);
+    sc.domain_fractions.push_back(parse_fraction(item, sc.fractions_where));
+    if (comma == std::string::npos) break;
+    start = comma + 1;
+  }
+  if (!sc.domains)
+    fail(ErrorKind::usage, "--domain-fractions need domains", "--domain-fractions", "--domains (sample) or domains = true");
+}
+
 } // namespace ts::cli

@@ -119,6 +119,31 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
   return s;
 }
 
+Rational parse_fraction(const std::string& text, const std::string& where) {
+  const char* valid = "a volume fraction between 0 and 1: 0.25 or 1/4";
+  Rational r;
+  try {
+    std::size_t used = 0;
+    std::size_t slash = text.find('/');
+    if (slash == std::string::npos) {
+      double v = std::stod(text, &used);
+      if (used != text.size()) throw std::invalid_argument(text);
+      r = exact_decimal(v);
+    } else {
+      long long p = std::stoll(text.substr(0, slash), &used);
+      if (used != slash) throw std::invalid_argument(text);
+      std::string den = text.substr(slash + 1);
+      long long q = std::stoll(den, &used);
+      if (used != den.size() || q <= 0) throw std::invalid_argument(text);
+      r = Rational(p, q);
+    }
+  } catch (const std::exception&) {
+    fail(ErrorKind::usage, "'" + text + "' is not a fraction", where, valid);
+  }
+  if (r < Rational(0) || Rational(1) < r) fail(ErrorKind::usage, "domain fraction " + text + " is outside [0, 1]", where, valid);
+  return r;
+}
+
 Scenario load_scenario(const std::string& path) {
   toml::table root;
   try {
@@ -200,11 +225,24 @@ Scenario load_scenario(const std::string& path) {
   sc.responses = get_strings(root, "responses", path);
   sc.tensors = get_strings(root, "tensors", path);
   if (auto rep = root["report"].as_table()) {
-    check_keys(*rep, {"domains"}, path, "[report]");
+    check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");
     if (auto d = rep->get("domains")) {
       auto b = d->value<bool>();
       if (!b) fail(ErrorKind::bad_file, "'domains' must be true or false", at(path, d->source()));
       sc.domains = *b;
+    }
+    if (auto fr = rep->get("domain_fractions")) {
+      auto arr = fr->as_array();
+      sc.fractions_where = at(path, fr->source());
+      if (!arr) fail(ErrorKind::bad_file, "'domain_fractions' must be an array", sc.fractions_where, "[0.75, 0.25] or [\"2/3\", \"1/3\"]");
+      for (auto& el : *arr) {
+        std::string where = at(path, el.source());
+        if (auto text = el.value<std::string>()) sc.domain_fractions.push_back(parse_fraction(*text, where));
+        else if (auto num = el.value<double>()) sc.domain_fractions.push_back(parse_fraction(std::to_string(*num), where));
+        else fail(ErrorKind::bad_file, "a domain fraction must be a number or a string such as \"1/3\"", where);
+      }
+      if (!sc.domains)
+        fail(ErrorKind::bad_file, "'domain_fractions' need domains = true", sc.fractions_where, "domains = true in [report]");
     }
   }
   if (auto obs = root.get("observation")) {

@@ -52,6 +52,8 @@ struct Scenario {
   std::vector<std::string> responses; // catalogue ids
   std::vector<std::string> tensors;   // extra tensor specs
   bool domains = false;
+  std::vector<Rational> domain_fractions; // volume fractions of the variants; empty: equal
+  std::string fractions_where;            // file:line or option of the fractions
   std::vector<ObservationRequest> observations; // [[observation]] tables
 };
 
@@ -60,5 +62,7 @@ LoweringKind parse_lowering_kind(const std::string& text, const std::string& whe
 const char* lowering_kind_name(LoweringKind k);
 // "strain:[001]", "field:[1-10]", "shear:[100],[010]", "magnetic-group:4'/m'm'm", "tilts:a0a0c-"
 LoweringStep parse_lowering_option(const std::string& text, const std::string& where);
+// "0.25", "1/4" or "1"; a fraction between 0 and 1, exactly. Throws Error(usage) naming `where`.
+Rational parse_fraction(const std::string& text, const std::string& where);
 
 } // namespace ts
