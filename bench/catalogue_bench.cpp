@@ -19,6 +19,7 @@
 // target is reported, never turned into a failing exit status: speed is shown,
 // not asserted.
 #include "bench_clock.hpp"
+#include "inverse_bench.hpp"
 
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
@@ -326,6 +327,8 @@ int run(const Args& args) {
                       [&] { return allowed_form(spec, fresh(cubic.group), frame); });
     }
   }
+
+  print_inverse_figures(R);
 
   // ---- memory and summary ---------------------------------------------------------------
   std::printf("\n");
