@@ -119,17 +119,19 @@ std::string write_observations(const ObservationRun& run, Format f) {
       const auto& s = a.solutions[i];
       const auto& m = s.breaking;
       rows.push_back({std::to_string(i + 1), inline_code(group_symbol(s), f), std::to_string(m.group.order()),
-                      std::to_string(m.index), std::to_string(m.variants), join(s.versions, ", "), producers_text(s),
-                      domains_text(m)});
+                      std::to_string(m.index), std::to_string(m.variants), join(s.versions, ", "), domains_text(m)});
     }
-    os << grid({"#", "group", "order", "index", "variants", "shown by", "produced by", "equal domains"}, rows, f) << "\n";
+    os << grid({"#", "group", "order", "index", "variants", "shown by", "equal domains"}, rows, f) << "\n";
+    const char* end = f == Format::latex ? "\\\\\n" : f == Format::markdown ? "\n\n" : "\n";
     for (std::size_t i = 0; i < a.solutions.size(); ++i) {
       const auto& ops = a.solutions[i].operations;
       std::vector<std::string> shown;
       for (const auto& o : ops) shown.push_back(inline_code(o, f));
       std::string listed = ops.size() <= 16 ? join(shown, ", ") : std::to_string(ops.size()) + " operations (in --format json)";
-      os << (f == Format::latex ? "\\noindent " : "") << i + 1 << ": " << listed
-         << (f == Format::latex ? "\\\\\n" : f == Format::markdown ? "\n\n" : "\n");
+      std::string produced = producers_text(a.solutions[i]);
+      os << (f == Format::latex ? "\\noindent " : "") << i + 1 << ": " << listed << end
+         << (f == Format::latex ? "\\noindent " : "") << (f == Format::text ? "   " : "") << "produced by: "
+         << (f == Format::latex ? latex_escape(produced) : produced) << end;
     }
     os << "\n"
        << line("equal domains: the average over equally populated variants keeps only what the parent allows, so a "

@@ -13,7 +13,7 @@ struct Target {
   TensorSpec spec;
 };
 
-Target observed_tensor(const ObservationRequest& o) {
+Target observed_tensor(const ObservationRequest& o, TimeParity parity) {
   if (!o.tensor.empty()) return {"tensor " + o.tensor, parse_tensor_spec(o.tensor)};
   const Response& r = ResponseCatalogue::builtin().get(o.response);
   std::string parts;
@@ -29,11 +29,13 @@ Target observed_tensor(const ObservationRequest& o) {
     // The part whose tensor carries the name the components are written with.
     const std::string& first = o.components.empty() ? std::string() : o.components.front();
     std::string prefix = first.substr(0, first.find('_'));
+    // Of parts with that name, the one of the asked time parity (a response may list both).
+    const bool want_odd = parity == TimeParity::c_type;
+    const bool any_parity = parity == TimeParity::either;
     for (const auto& p : r.parts)
-      if (first.find('_') != std::string::npos && p.spec.name == prefix) {
+      if (first.find('_') != std::string::npos && p.spec.name == prefix &&
+          (!chosen || (!any_parity && chosen->spec.time_odd != want_odd && p.spec.time_odd == want_odd)))
         chosen = &p;
-        break;
-      }
     if (!chosen && r.parts.size() == 1) chosen = &r.parts.front();
     if (!chosen)
       fail(ErrorKind::usage, "cannot tell which part of " + r.id + " the components '" + first + "' belong to", o.where,
@@ -80,7 +82,7 @@ std::string producer_words(const Producer& p, const PointGroup& h, const Frame& 
   case QuantityKind::axial_odd: return "magnetisation (or magnetic field) " + direction_words(p, lattice, m);
   case QuantityKind::polar_odd: return "current " + direction_words(p, lattice, m);
   case QuantityKind::axial_even:
-    return "axial time-even rotation (rigid-unit rotation, ferro-rotational order) " + direction_words(p, lattice, m);
+    return "axial time-even vector (a rotation of rigid units) " + direction_words(p, lattice, m);
   case QuantityKind::strain: {
     return "strain or shear of the form " + strain_form_words(allowed_form(parse_tensor_spec("e_ab: sym(ab)"), h, frame));
   }
@@ -104,10 +106,10 @@ ObservationRun run_observations(const Scenario& sc) {
   for (const auto& o : sc.observations) {
     ObservationAnswer a;
     a.request = o;
-    Target t = observed_tensor(o);
+    a.parity = parse_time_parity(o.parity, o.where);
+    Target t = observed_tensor(o, a.parity);
     a.what = t.what;
     a.spec = t.spec;
-    a.parity = parse_time_parity(o.parity, o.where);
     ComponentObservation c{t.spec, {}, component_codes(t.spec, o.components, o.where), a.parity, res.frame};
     AllowedForm names = allowed_form(t.spec, PointGroup());
     for (int code : c.codes) c.names.push_back(names.component_name(code));
