@@ -204,6 +204,14 @@ TEST_CASE("observe: bad input names the option or file line", "[inverse][cli]") 
   CliResult parity = run_cli({"observe", "m-3m", "--tensor", "V", "--component", "x", "--type", "q"});
   CHECK(parity.exit_code != 0);
   CHECK(parity.err.find("either") != std::string::npos);
+  CliResult match = run_cli({"observe", "m-3m", "--tensor", "V", "--component", "x", "--match", "some"});
+  CHECK(match.exit_code != 0);
+  CHECK(match.err.find("any (at least one") != std::string::npos);
+  CliResult every = run_cli({"observe", "m-3m", "--tensor", "P_a", "--component", "P_x", "--component", "P_y",
+                             "--component", "P_z", "--match", "all", "--type", "i"});
+  CHECK(every.exit_code == 0);
+  CHECK(every.out.find("each of them nonzero") != std::string::npos);
+  CHECK(every.out.find("4 found among 419 proper subgroups") != std::string::npos);
   CliResult none = run_cli({"observe", "m-3m"});
   CHECK(none.exit_code != 0);
   CHECK(none.err.find("--response") != std::string::npos);
@@ -213,4 +221,23 @@ TEST_CASE("observe: bad input names the option or file line", "[inverse][cli]") 
   CHECK(f.exit_code != 0);
   CHECK(f.err.find("bad.toml:3") != std::string::npos);
   CHECK(f.err.find("components") != std::string::npos);
+}
+
+TEST_CASE("inverse: all components at once, and a colourless answer in a grey parent", "[inverse]") {
+  // Derived here: with P_x, P_y and P_z each nonzero, of the polar species above
+  // only 3m1' (P ∥ <111>, four orientations) qualifies: 4mm keeps P on a cube axis,
+  // mm2 on a face diagonal (one component zero). The mirror groups m ⊥ <110> that
+  // allow (a, a, c) lie inside a 3m1', so they are not maximal.
+  ComponentObservation every = seen("P_a", {"P_x", "P_y", "P_z"}, TimeParity::i_type);
+  every.all = true;
+  const InverseResult r = find_minimal_breaking(grey("m-3m"), observation_of(every));
+  REQUIRE(r.maximal.size() == 4);
+  for (const auto& m : r.maximal) CHECK(type_of(m.group) == "3m1'");
+  // A grey triclinic parent 11': a moment M_x (c-type) is forbidden by 1' and
+  // allowed only in the colourless subgroup 1, which the search must offer.
+  const InverseResult t =
+      find_minimal_breaking(grey("1"), observation_of(seen("M_a: axial, time-odd", {"M_x"}, TimeParity::c_type)));
+  REQUIRE(t.maximal.size() == 1);
+  CHECK(t.maximal[0].group.order() == 1);
+  CHECK(t.maximal[0].variants == 2);
 }

@@ -24,6 +24,7 @@ void setup_observe(CLI::App& app) {
   cmd->add_option("--tensor", o->seen.tensor, "tensor spec, e.g. \"chi_abc: sym(abc)\"");
   cmd->add_option("--component", o->seen.components, "component seen nonzero, sample frame, e.g. chi_xxx (repeatable)");
   cmd->add_option("--type", o->seen.parity, "i (time-even), c (time-odd) or either (default)");
+  cmd->add_option("--match", o->seen.match, "any (default: at least one component nonzero) or all (each of them)");
   cmd->add_option("--label", o->seen.label, "words for the report");
   add_output_options(*cmd, o->out);
   cmd->callback([o] {

@@ -57,28 +57,37 @@ std::vector<int> component_codes(const TensorSpec& spec, const std::vector<std::
   return codes;
 }
 
+namespace {
+
+template <class Zero>
+bool shown(const std::vector<int>& codes, bool all, Zero is_zero) {
+  auto nonzero = [&](int c) { return !is_zero(c); };
+  return all ? std::all_of(codes.begin(), codes.end(), nonzero) : std::any_of(codes.begin(), codes.end(), nonzero);
+}
+
+} // namespace
+
 bool shows_components(const TensorSpec& version, const std::vector<int>& codes, const PointGroup& g,
-                      const Frame& frame) {
+                      const Frame& frame, bool all) {
   AllowedForm f = allowed_form(version, g, frame);
-  return std::any_of(codes.begin(), codes.end(), [&](int c) { return !f.is_zero(c); });
+  return shown(codes, all, [&](int c) { return f.is_zero(c); });
 }
 
 Observation observation_of(const ComponentObservation& c) {
   Observation o;
   std::string names;
   for (const auto& n : c.names) names += (names.empty() ? "" : ", ") + n;
-  o.description = names + " nonzero (" + time_parity_name(c.parity) + ")";
+  o.description = names + (c.all && c.names.size() > 1 ? " all" : "") + " nonzero (" + time_parity_name(c.parity) + ")";
   std::vector<TensorSpec> versions = parity_versions(c.spec, c.parity);
   o.allowed_in = [versions, c](const PointGroup& g) {
     return std::any_of(versions.begin(), versions.end(),
-                       [&](const TensorSpec& v) { return shows_components(v, c.codes, g, c.frame); });
+                       [&](const TensorSpec& v) { return shows_components(v, c.codes, g, c.frame, c.all); });
   };
   o.survives_equal_domains = [versions, c](const PointGroup& parent, const PointGroup& h) {
     for (const auto& v : versions) {
       AllowedForm f = allowed_form(v, h, c.frame);
       DomainAnalysis d = domain_variants(parent, h, f, c.frame);
-      for (int code : c.codes)
-        if (!d.average.is_zero(code)) return true;
+      if (shown(c.codes, c.all, [&](int code) { return d.average.is_zero(code); })) return true;
     }
     return false;
   };

@@ -21,6 +21,7 @@ struct ComponentObservation {
   std::vector<std::string> names;  // as observed: chi_xxx (sample-frame components)
   std::vector<int> codes;          // full multi-index codes of the same components
   TimeParity parity = TimeParity::either;
+  bool all = false;                // every listed component nonzero; false: at least one (e.g. P in any direction)
   Frame frame;                     // the sample frame of the components
 };
 
@@ -33,9 +34,10 @@ std::vector<TensorSpec> parity_versions(const TensorSpec& spec, TimeParity parit
 std::vector<int> component_codes(const TensorSpec& spec, const std::vector<std::string>& names,
                                  const std::string& where);
 
-// True when some observed component is nonzero in the allowed form of `version` in g.
+// True when some (all = false) or every (all = true) observed component is
+// nonzero in the allowed form of `version` in g.
 bool shows_components(const TensorSpec& version, const std::vector<int>& codes, const PointGroup& g,
-                      const Frame& frame);
+                      const Frame& frame, bool all = false);
 
 // The predicate (allowed in some version) and the equal-domain average check.
 Observation observation_of(const ComponentObservation& c);

@@ -82,6 +82,7 @@ std::string write_observations(const ObservationRun& run, Format f) {
                                     {"spec", a.spec.canonical_text()},
                                     {"components", strings(a.components)},
                                     {"type", time_parity_name(a.parity)},
+                                    {"match", a.request.match},
                                     {"allowed_in_parent", !a.parent_versions.empty()},
                                     {"parent_allows", strings(a.parent_versions)},
                                     {"subgroups_searched", static_cast<std::int64_t>(a.search.subgroups)},
@@ -100,7 +101,10 @@ std::string write_observations(const ObservationRun& run, Format f) {
   os << line("sample frame: " + frame_text + "; components below are in this frame, operations in crystal axes", f)
      << "\n";
   for (const auto& a : run.answers) {
-    std::string seen = join(a.components, ", ") + " nonzero (" + time_parity_name(a.parity) + ")";
+    const bool all = a.request.match == "all";
+    std::string seen = join(a.components, ", ") +
+                       (a.components.size() < 2 ? "" : all ? ", each of them" : ", at least one of them") + " nonzero (" +
+                       time_parity_name(a.parity) + ")";
     os << section_heading("observation: " + (a.request.label.empty() ? seen : a.request.label), f, 2);
     os << line("seen: " + seen + " in " + a.what, f);
     if (!a.parent_versions.empty()) {

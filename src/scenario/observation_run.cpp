@@ -110,13 +110,17 @@ ObservationRun run_observations(const Scenario& sc) {
     Target t = observed_tensor(o, a.parity);
     a.what = t.what;
     a.spec = t.spec;
-    ComponentObservation c{t.spec, {}, component_codes(t.spec, o.components, o.where), a.parity, res.frame};
+    if (o.match != "any" && o.match != "all")
+      fail(ErrorKind::usage, "match '" + o.match + "' is neither any nor all", o.where,
+           "any (at least one component nonzero) or all (each of them)");
+    ComponentObservation c{t.spec, {}, component_codes(t.spec, o.components, o.where), a.parity, o.match == "all",
+                           res.frame};
     AllowedForm names = allowed_form(t.spec, PointGroup());
     for (int code : c.codes) c.names.push_back(names.component_name(code));
     a.components = c.names;
     std::vector<TensorSpec> versions = parity_versions(t.spec, a.parity);
     for (const auto& v : versions)
-      if (shows_components(v, c.codes, parent, res.frame)) a.parent_versions.push_back(v.time_odd ? "c-type" : "i-type");
+      if (shows_components(v, c.codes, parent, res.frame, c.all)) a.parent_versions.push_back(v.time_odd ? "c-type" : "i-type");
     a.search = find_minimal_breaking(parent, observation_of(c));
     for (const auto& m : a.search.maximal) {
       ObservationSolution s;
@@ -126,7 +130,7 @@ ObservationRun run_observations(const Scenario& sc) {
       for (const auto& op : m.group.operations()) s.operations.push_back(op.symbol(lattice));
       for (const auto& p : m.producers) s.producers.push_back(producer_words(p, m.group, res.frame, lattice, sc.metric));
       for (const auto& v : versions)
-        if (shows_components(v, c.codes, m.group, res.frame)) s.versions.push_back(v.time_odd ? "c-type" : "i-type");
+        if (shows_components(v, c.codes, m.group, res.frame, c.all)) s.versions.push_back(v.time_odd ? "c-type" : "i-type");
       a.solutions.push_back(std::move(s));
     }
     run.answers.push_back(std::move(a));

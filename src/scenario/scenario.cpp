@@ -251,7 +251,7 @@ Scenario load_scenario(const std::string& path) {
     for (auto& el : *arr) {
       auto t = el.as_table();
       if (!t) fail(ErrorKind::bad_file, "each [[observation]] entry must be a table", at(path, el.source()));
-      check_keys(*t, {"label", "response", "part", "tensor", "components", "type"}, path, "[[observation]]");
+      check_keys(*t, {"label", "response", "part", "tensor", "components", "type", "match"}, path, "[[observation]]");
       ObservationRequest o;
       o.where = at(path, t->source());
       o.label = get_string(*t, "label", path, false, "a string");
@@ -265,6 +265,8 @@ Scenario load_scenario(const std::string& path) {
       o.components = get_strings(*t, "components", path);
       std::string type = get_string(*t, "type", path, false, "\"i\", \"c\" or \"either\"");
       if (!type.empty()) o.parity = type;
+      std::string match = get_string(*t, "match", path, false, "\"any\" or \"all\"");
+      if (!match.empty()) o.match = match;
       if (o.response.empty() == o.tensor.empty())
         fail(ErrorKind::bad_file, "an [[observation]] needs either 'response' or 'tensor'", o.where,
              "response = \"second-order-conductivity\" or tensor = \"chi_abc: sym(abc)\"");

@@ -35,6 +35,7 @@ struct ObservationRequest {
   std::string tensor;                  // tensor spec, or empty
   std::vector<std::string> components; // sample-frame names such as chi_xxx
   std::string parity = "either";       // i, c or either
+  std::string match = "any";           // any: at least one component nonzero; all: each of them
   std::string where;                   // file:line or option, for messages
 };
 
