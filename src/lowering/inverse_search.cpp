@@ -56,12 +56,6 @@ std::optional<Producer> vector_producer(const PointGroup& parent, const PointGro
         break;
       }
   if (dim == 2 && !sum.det().is_zero()) dim = 3;
-  // One sign for the plane normal, so that reports do not depend on the column order.
-  for (const auto& c : normal)
-    if (!c.is_zero()) {
-      if (c.to_double() < 0) normal = -normal;
-      break;
-    }
   std::vector<Vec3> candidates = nonzero;
   for (const auto& g : generic) candidates.push_back(combination(cols, g[0], g[1], g[2]));
   for (const auto& v : candidates) {

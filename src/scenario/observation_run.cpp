@@ -44,12 +44,21 @@ Target observed_tensor(const ObservationRequest& o, TimeParity parity) {
   return {r.name + " [" + r.id + "]: " + chosen->label, chosen->spec};
 }
 
+// The label of ±v whose first nonzero index is positive: d and -d have the same
+// stabiliser, and a plane normal has no sign, so reports do not depend on which came out.
+std::string unsigned_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
+  std::string label = lattice_direction_label(v, lattice, m);
+  std::size_t first = label.find_first_of("123456789");
+  if (first != std::string::npos && first > 0 && label[first - 1] == '-') return lattice_direction_label(-v, lattice, m);
+  return label;
+}
+
 std::string direction_words(const Producer& p, LatticeKind lattice, const LatticeMetric& m) {
-  if (p.free_dimensions == 1) return "∥ " + lattice_direction_label(p.direction, lattice, m);
+  if (p.free_dimensions == 1) return "∥ " + unsigned_label(p.direction, lattice, m);
   if (p.free_dimensions == 2)
-    return "along a general direction in the plane ⊥ " + lattice_direction_label(p.plane_normal, lattice, m) +
-           " (e.g. " + lattice_direction_label(p.direction, lattice, m) + ")";
-  return "along a general direction (e.g. " + lattice_direction_label(p.direction, lattice, m) + ")";
+    return "along a general direction in the plane ⊥ " + unsigned_label(p.plane_normal, lattice, m) + " (e.g. " +
+           unsigned_label(p.direction, lattice, m) + ")";
+  return "along a general direction (e.g. " + unsigned_label(p.direction, lattice, m) + ")";
 }
 
 // "e_xx = e_yy, e_zz, e_xy = -e_xz (sample frame)": components equal to ± one
