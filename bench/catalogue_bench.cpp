@@ -19,6 +19,7 @@
 // target is reported, never turned into a failing exit status: speed is shown,
 // not asserted.
 #include "bench_clock.hpp"
+#include "inverse_bench.hpp"
 
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
@@ -369,6 +370,7 @@ int run(const Args& args) {
     print_figure("layout: 12 responses, 26 low-index directions, 2 field geometries", duration_text(tl.median), "< 1 s",
                  verdict(tl.median < 1.0));
   }
+  print_inverse_figures(R);
 
   // ---- memory and summary ---------------------------------------------------------------
   std::printf("\n");

@@ -1,6 +1,6 @@
 // tensorsieve run SCENARIO.toml | sample GROUP --cut ... --lower KIND:VALUE ...
 #include "cli/commands.hpp"
-#include "cli/frame_options.hpp"
+#include "cli/sample_options.hpp"
 #include "core/error.hpp"
 #include "report/scenario_report.hpp"
 
@@ -12,45 +12,36 @@ namespace ts::cli {
 void setup_run(CLI::App& app) {
   struct Opts {
     OutputOptions out;
-    std::string file;
+    std::string file, fractions;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses");
   cmd->add_option("scenario", o->file, "scenario TOML file (docs/scenarios.md)")->required();
+  add_fractions_option(*cmd, o->fractions);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     Format f = parse_format(o->out.format);
-    emit(o->out, write_scenario(run_scenario(load_scenario(o->file)), f));
+    Scenario sc = load_scenario(o->file);
+    apply_fractions_option(o->fractions, sc);
+    emit(o->out, write_scenario(run_scenario(sc), f));
   });
 }
 
 void setup_sample(CLI::App& app) {
   struct Opts {
     OutputOptions out;
-    Scenario sc;
-    std::vector<std::string> lowerings, bars, layouts, rosette, layout_directions, layout_fields;
+    SampleOptions sample;
+    std::string fractions;
+    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields;
     std::string waveform = "sine";
-    std::string a, b, c;
-    bool colourless = false;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
-  cmd->add_option("group", o->sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')")->required();
-  cmd->add_option("--cut", o->sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
-  cmd->add_option("--x", o->sc.x, "in-plane direction for sample x");
-  cmd->add_option("--z", o->sc.z, "sample z for a bulk sample (no cut)");
-  cmd->add_flag("--equivalent-faces", o->sc.equivalent_faces, "free-standing slab with identical faces");
-  cmd->add_option("--lower", o->lowerings,
-                  "lowering step KIND:VALUE, in order: strain:[001], shear:[100],[010], polar:[110], "
-                  "electric-field:[001], moment:[001], magnetic-field:[1-10], current:[100], "
-                  "magnetic-group:4'/m'm'm, tilts:a0a0c-");
-  cmd->add_option("--response", o->sc.responses, "response id from `tensorsieve responses` (repeatable)");
-  cmd->add_option("--tensor", o->sc.tensors, "extra tensor spec (repeatable)");
-  cmd->add_option("--a", o->a, "lattice parameter a");
-  cmd->add_option("--b", o->b, "lattice parameter b");
-  cmd->add_option("--c", o->c, "lattice parameter c");
-  cmd->add_flag("--colourless", o->colourless, "take a group without primes literally, not as G1'");
-  cmd->add_flag("--domains", o->sc.domains, "orientation domains of the lowering and their average");
+  add_sample_options(*cmd, o->sample, true);
+  cmd->add_option("--response", o->sample.sc.responses, "response id from `tensorsieve responses` (repeatable)");
+  cmd->add_option("--tensor", o->sample.sc.tensors, "extra tensor spec (repeatable)");
+  cmd->add_flag("--domains", o->sample.sc.domains, "orientation domains of the lowering and their average");
+  add_fractions_option(*cmd, o->fractions);
   cmd->add_option("--bar", o->bars,
                   "a Hall bar CURRENT[:FIELD] (repeatable): CURRENT is rotating, an in-plane [uvw] or an angle from x "
                   "(multiple of 15°); FIELD is none, in-plane, normal, any, along-current, across-current, [uvw] or "
@@ -61,7 +52,7 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--rosette", o->rosette, "candidate bar angles from x in degrees for --layout, e.g. 0,30,45,90")
       ->delimiter(',');
   cmd->add_option("--layout-directions", o->layout_directions,
-                  "candidate in-plane bar directions for --layout, e.g. [100],[110] (indices with commas: repeat the option)")
+                  "candidate in-plane bar directions for --layout, e.g. [100];[110] (or repeat the option)")
       ->allow_extra_args(false)
       ->delimiter(';');
   cmd->add_option("--layout-fields", o->layout_fields,
@@ -69,11 +60,8 @@ void setup_sample(CLI::App& app) {
       ->delimiter(',');
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
-    Scenario sc = o->sc;
-    sc.assume_nonmagnetic = !o->colourless;
-    for (std::size_t i = 0; i < o->lowerings.size(); ++i)
-      sc.steps.push_back(parse_lowering_option(o->lowerings[i], "--lower " + o->lowerings[i]));
-    sc.metric = metric_option({"", "", o->a, o->b, o->c});
+    Scenario sc = scenario_from_options(o->sample);
+    apply_fractions_option(o->fractions, sc);
     for (const auto& b : o->bars) {
       BarSpec spec = parse_bar_option(b, "--bar " + b);
       spec.waveform = o->waveform;
@@ -86,7 +74,9 @@ void setup_sample(CLI::App& app) {
       for (const auto& a : o->rosette) {
         bool ok = !a.empty() && a.size() < 6 && a.find_first_not_of("-0123456789") == std::string::npos &&
                   std::stoi(a) % 15 == 0;
-        if (!ok) fail(ErrorKind::usage, "rosette angle '" + a + "' is not a multiple of 15 degrees", "--rosette", "e.g. --rosette 0,30,45,90");
+        if (!ok)
+          fail(ErrorKind::usage, "rosette angle '" + a + "' is not a multiple of 15 degrees", "--rosette",
+               "e.g. --rosette 0,30,45,90");
         spec.rosette.push_back(std::stoi(a));
       }
       sc.layouts.push_back(spec);

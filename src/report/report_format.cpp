@@ -61,6 +61,12 @@ std::string inline_code(const std::string& s, Format f) {
   return s;
 }
 
+std::string section_heading(const std::string& s, Format f, int level) {
+  if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
+  if (f == Format::latex) return std::string(level <= 1 ? "\\section*{" : "\\subsection*{") + latex_escape(s) + "}\n";
+  return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
+}
+
 std::string finish(std::string text, Format f) {
   if (f != Format::latex) return text;
   static const std::pair<const char*, const char*> map[] = {

@@ -11,6 +11,9 @@ enum class Format { text, markdown, latex, json };
 Format parse_format(const std::string& name); // throws Error(usage)
 const char* format_name(Format f);
 
+// A section heading: level 1 is the report title, 2 a section, 3 a subsection.
+std::string section_heading(const std::string& s, Format f, int level = 2);
+
 // A simple aligned table for text and Markdown, or a LaTeX tabular.
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
                  Format f);

@@ -60,15 +60,24 @@ std::string relation_text(const BrokenRelation& b, Format f) {
   return symbol_text(b.component, style) + " = " + factor + symbol_text(b.anchor, style);
 }
 
-std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f) {
+// Components named by `form`, values in the parameters of `params` (the same form, or a field expansion's).
+std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f,
+                                   const AllowedForm* params = nullptr) {
   TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
   std::vector<std::string> parts;
   for (int r = 0; r < form.symmetry->size(); ++r) {
     int c = form.symmetry->rep_code(r);
     if (t.is_zero(c)) continue;
-    parts.push_back(symbol_text(form.component_name(c), style) + " = " + combination_text(form, t.components[c], style));
+    parts.push_back(symbol_text(form.component_name(c), style) + " = " +
+                    combination_text(params ? *params : form, t.components[c], style));
   }
   return parts.empty() ? "all components vanish" : join(parts, "; ");
+}
+
+std::string fractions_text(const DomainReport& d) {
+  std::vector<std::string> w;
+  for (const auto& x : d.fractions) w.push_back(x.str());
+  return d.fractions.empty() ? "equal populations" : "volume fractions " + join(w, ", ");
 }
 
 } // namespace
@@ -139,9 +148,24 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
         for (const auto& v : d.analysis.variants)
           vars.push_back(toml::table{{"representative", v.representative.symbol(lattice)},
                                      {"components", tensor_components_text(v.tensor, d.form, Format::text)}});
+        toml::array fractions, fields;
+        for (const auto& w : d.fractions) fractions.push_back(w.str());
+        for (const auto& t : d.in_field) {
+          toml::array per;
+          for (std::size_t v = 0; v < t.variants.size(); ++v)
+            per.push_back(toml::table{{"representative", d.analysis.variants[v].representative.symbol(lattice)},
+                                      {"components", tensor_components_text(t.variants[v], d.form, Format::text, &t.form)}});
+          fields.push_back(toml::table{{"field", t.field.label},
+                                       {"expansion", t.expansion.name + ": " + t.expansion.description()},
+                                       {"expansion_independent", t.form.independent()},
+                                       {"variants", per},
+                                       {"average", tensor_components_text(t.average, d.form, Format::text, &t.form)}});
+        }
         entry.insert("domains", toml::table{{"from_step", static_cast<std::int64_t>(d.from_step)},
                                             {"variants", vars},
                                             {"domain_group", identify(d.domain_group, GroupCatalogue::builtin()).type->symbol},
+                                            {"fractions", fractions},
+                                            {"in_field", fields},
                                             {"average", tensor_components_text(d.analysis.average, d.form, Format::text)}});
       }
       parts.push_back(entry);
@@ -231,8 +255,22 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
                          tensor_components_text(d.analysis.variants[v].tensor, d.form, f)});
       os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, vrows, f);
-      os << "\n" << (f == Format::markdown ? "**" : "") << "average over equal populations:" << (f == Format::markdown ? "** " : " ")
-         << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
+      os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
+         << (f == Format::markdown ? "** " : " ") << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
+      for (const auto& t : d.in_field) {
+        const std::string field_symbol = t.expansion.name.substr(p.spec.name.size());
+        os << heading("every variant in the lab-frame " + t.field.label + ": the part linear in the field, per unit " +
+                          field_symbol + " (" + t.expansion.name + " = d" + p.spec.name + "/d" + field_symbol + ", " +
+                          std::to_string(t.form.independent()) + " independent in " + dg + ")",
+                      f, 3);
+        std::vector<std::vector<std::string>> frows;
+        for (std::size_t v = 0; v < t.variants.size(); ++v)
+          frows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
+                           tensor_components_text(t.variants[v], d.form, f, &t.form)});
+        os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, frows, f);
+        os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
+           << (f == Format::markdown ? "** " : " ") << tensor_components_text(t.average, d.form, f, &t.form) << "\n\n";
+      }
     }
   }
   os << write_bars(r, f) << write_layouts(r, f);

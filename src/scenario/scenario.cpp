@@ -222,6 +222,31 @@ void read_layouts(const toml::table& root, const std::string& path, Scenario& sc
 
 } // namespace
 
+Rational parse_fraction(const std::string& text, const std::string& where) {
+  const char* valid = "a volume fraction between 0 and 1: 0.25 or 1/4";
+  Rational r;
+  try {
+    std::size_t used = 0;
+    std::size_t slash = text.find('/');
+    if (slash == std::string::npos) {
+      double v = std::stod(text, &used);
+      if (used != text.size()) throw std::invalid_argument(text);
+      r = exact_decimal(v);
+    } else {
+      long long p = std::stoll(text.substr(0, slash), &used);
+      if (used != slash) throw std::invalid_argument(text);
+      std::string den = text.substr(slash + 1);
+      long long q = std::stoll(den, &used);
+      if (used != den.size() || q <= 0) throw std::invalid_argument(text);
+      r = Rational(p, q);
+    }
+  } catch (const std::exception&) {
+    fail(ErrorKind::usage, "'" + text + "' is not a fraction", where, valid);
+  }
+  if (r < Rational(0) || Rational(1) < r) fail(ErrorKind::usage, "domain fraction " + text + " is outside [0, 1]", where, valid);
+  return r;
+}
+
 Scenario load_scenario(const std::string& path) {
   toml::table root;
   try {
@@ -232,8 +257,8 @@ Scenario load_scenario(const std::string& path) {
   }
   Scenario sc;
   sc.source = path;
-  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout"}, path,
-             "the scenario");
+  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation"},
+             path, "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
@@ -305,16 +330,60 @@ Scenario load_scenario(const std::string& path) {
   read_bars(root, path, sc);
   read_layouts(root, path, sc);
   if (auto rep = root["report"].as_table()) {
-    check_keys(*rep, {"domains"}, path, "[report]");
+    check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");
     if (auto d = rep->get("domains")) {
       auto b = d->value<bool>();
       if (!b) fail(ErrorKind::bad_file, "'domains' must be true or false", at(path, d->source()));
       sc.domains = *b;
     }
+    if (auto fr = rep->get("domain_fractions")) {
+      auto arr = fr->as_array();
+      sc.fractions_where = at(path, fr->source());
+      if (!arr) fail(ErrorKind::bad_file, "'domain_fractions' must be an array", sc.fractions_where, "[0.75, 0.25] or [\"2/3\", \"1/3\"]");
+      for (auto& el : *arr) {
+        std::string where = at(path, el.source());
+        if (auto text = el.value<std::string>()) sc.domain_fractions.push_back(parse_fraction(*text, where));
+        else if (auto num = el.value<double>()) sc.domain_fractions.push_back(parse_fraction(std::to_string(*num), where));
+        else fail(ErrorKind::bad_file, "a domain fraction must be a number or a string such as \"1/3\"", where);
+      }
+      if (!sc.domains)
+        fail(ErrorKind::bad_file, "'domain_fractions' need domains = true", sc.fractions_where, "domains = true in [report]");
+    }
   }
-  if (sc.responses.empty() && sc.tensors.empty())
+  if (auto obs = root.get("observation")) {
+    auto arr = obs->as_array();
+    if (!arr) fail(ErrorKind::bad_file, "'observation' must be an array of tables [[observation]]", at(path, obs->source()));
+    for (auto& el : *arr) {
+      auto t = el.as_table();
+      if (!t) fail(ErrorKind::bad_file, "each [[observation]] entry must be a table", at(path, el.source()));
+      check_keys(*t, {"label", "response", "part", "tensor", "components", "type", "match"}, path, "[[observation]]");
+      ObservationRequest o;
+      o.where = at(path, t->source());
+      o.label = get_string(*t, "label", path, false, "a string");
+      o.response = get_string(*t, "response", path, false, "a response id from `tensorsieve responses`");
+      o.tensor = get_string(*t, "tensor", path, false, "a tensor spec such as \"chi_abc: sym(abc)\"");
+      if (auto part = t->get("part")) {
+        auto n = part->value<std::int64_t>();
+        if (!n || *n < 1) fail(ErrorKind::bad_file, "'part' must be a part number 1, 2, ...", at(path, part->source()));
+        o.part = std::to_string(*n);
+      }
+      o.components = get_strings(*t, "components", path);
+      std::string type = get_string(*t, "type", path, false, "\"i\", \"c\" or \"either\"");
+      if (!type.empty()) o.parity = type;
+      std::string match = get_string(*t, "match", path, false, "\"any\" or \"all\"");
+      if (!match.empty()) o.match = match;
+      if (o.response.empty() == o.tensor.empty())
+        fail(ErrorKind::bad_file, "an [[observation]] needs either 'response' or 'tensor'", o.where,
+             "response = \"second-order-conductivity\" or tensor = \"chi_abc: sym(abc)\"");
+      if (o.components.empty())
+        fail(ErrorKind::bad_file, "an [[observation]] needs 'components'", o.where, "components = [\"chi_xxx\"]");
+      sc.observations.push_back(o);
+    }
+  }
+  if (sc.responses.empty() && sc.tensors.empty() && sc.observations.empty())
     fail(ErrorKind::bad_file, "the scenario asks for no response", path,
-         "responses = [\"anomalous-hall\", ...] (see `tensorsieve responses`) or tensors = [\"V[V2]\"]");
+         "responses = [\"anomalous-hall\", ...] (see `tensorsieve responses`), tensors = [\"V[V2]\"] or an "
+         "[[observation]] table");
   return sc;
 }
 

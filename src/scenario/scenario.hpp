@@ -49,6 +49,19 @@ struct LayoutSpec {
   std::string where;
 };
 
+// An observed signal for the inverse question (`tensorsieve observe`): the
+// components seen nonzero of a catalogue response part or of a tensor spec.
+struct ObservationRequest {
+  std::string label;
+  std::string response;                // catalogue id, or empty
+  std::string part;                    // 1-based part number of the response; empty: the part named like the components
+  std::string tensor;                  // tensor spec, or empty
+  std::vector<std::string> components; // sample-frame names such as chi_xxx
+  std::string parity = "either";       // i, c or either
+  std::string match = "any";           // any: at least one component nonzero; all: each of them
+  std::string where;                   // file:line or option, for messages
+};
+
 struct Scenario {
   std::string title;
   std::string source = "command line";
@@ -65,6 +78,9 @@ struct Scenario {
   bool domains = false;
   std::vector<BarSpec> bars;
   std::vector<LayoutSpec> layouts;
+  std::vector<Rational> domain_fractions; // volume fractions of the variants; empty: equal
+  std::string fractions_where;            // file:line or option of the fractions
+  std::vector<ObservationRequest> observations; // [[observation]] tables
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
@@ -76,5 +92,7 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
 BarSpec parse_bar_option(const std::string& text, const std::string& where);
 // "--layout second-order-conductivity:2" -> response and harmonic.
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where);
+// "0.25", "1/4" or "1"; a fraction between 0 and 1, exactly. Throws Error(usage) naming `where`.
+Rational parse_fraction(const std::string& text, const std::string& where);
 
 } // namespace ts

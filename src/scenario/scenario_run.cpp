@@ -86,13 +86,6 @@ Vec3 step_direction(const std::string& text, const std::string& system, LatticeK
   return metric_direction(parse_direction(text, where), system, lattice, m, where);
 }
 
-std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
-  if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
-  for (const auto& cand : GroupCatalogue::builtin().groups())
-    if (cand.type_symbol == id.type->symbol && frame_carries(frame.axes, g, cand.group)) return cand.symbol;
-  return "";
-}
-
 PointGroup tilt_group(const std::string& glazer, const PointGroup& current, const std::string& where) {
   TiltedPerovskite tp = build_tilted_perovskite(parse_glazer_symbol(glazer));
   std::vector<Operation> ops;
@@ -194,6 +187,13 @@ StepChange compare(const AllowedForm& before, const AllowedForm& after) {
 }
 
 } // namespace
+
+std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
+  if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
+  for (const auto& cand : GroupCatalogue::builtin().groups())
+    if (cand.type_symbol == id.type->symbol && frame_carries(frame.axes, g, cand.group)) return cand.symbol;
+  return "";
+}
 
 ScenarioResult run_scenario(const Scenario& sc) {
   ScenarioResult res;
@@ -322,18 +322,49 @@ ScenarioResult run_scenario(const Scenario& sc) {
 
   if (sc.domains) {
     std::size_t from = sc.cut.empty() ? 0 : 1;
-    PointGroup h = res.chain[from].group;
+    const PointGroup& top = res.chain[from].group;
+    PointGroup h = top;
+    std::vector<LabField> fields;
     for (const auto& s : sc.steps) {
       bool applied = s.kind == LoweringKind::magnetic_field || s.kind == LoweringKind::electric_field ||
                      s.kind == LoweringKind::current;
       std::string ignored;
       if (!applied) h = lower(h, s, parent.system, metric, &ignored);
+      else
+        fields.push_back({s.kind == LoweringKind::magnetic_field ? QuantityKind::axial_odd
+                          : s.kind == LoweringKind::current      ? QuantityKind::polar_odd
+                                                                 : QuantityKind::polar_even,
+                          step_direction(s.along, parent.system, lattice, metric, s.where), step_label(s)});
     }
-    if (h.order() < res.chain[from].group.order())
+    const std::size_t n = top.order() / h.order();
+    if (!sc.domain_fractions.empty()) {
+      if (n == 1)
+        fail(ErrorKind::bad_geometry, "domain fractions given, but no spontaneous step breaks the symmetry: one domain",
+             sc.fractions_where, "a strain, polar, moment, magnetic-group or tilts step, or no domain_fractions");
+      if (sc.domain_fractions.size() != n)
+        fail(ErrorKind::bad_geometry,
+             std::to_string(sc.domain_fractions.size()) + " domain fractions given for " + std::to_string(n) + " variants",
+             sc.fractions_where, std::to_string(n) + " fractions, one per variant in the order of the report");
+      Rational sum;
+      for (const auto& w : sc.domain_fractions) sum = sum + w;
+      if (sum != Rational(1))
+        fail(ErrorKind::bad_geometry, "the domain fractions add up to " + sum.str() + ", not 1", sc.fractions_where,
+             "volume fractions that add up to 1, e.g. [0.75, 0.25]");
+    }
+    std::vector<Rational> weights =
+        sc.domain_fractions.empty() ? std::vector<Rational>(n, Rational(1, static_cast<std::int64_t>(n))) : sc.domain_fractions;
+    if (n > 1)
       for (std::size_t k = 0; k < res.parts.size(); ++k) {
         AllowedForm form = allowed_form(res.parts[k].spec, h, res.frame);
-        DomainAnalysis a = domain_variants(res.chain[from].group, h, form, res.frame);
-        res.domains.push_back({k, from, h, std::move(form), std::move(a)});
+        DomainAnalysis a = domain_variants(top, h, form, res.frame);
+        if (!sc.domain_fractions.empty()) {
+          std::vector<ParamTensor> tensors;
+          for (const auto& v : a.variants) tensors.push_back(v.tensor);
+          a.average = weighted_sum(tensors, weights);
+        }
+        DomainReport d{k, from, h, std::move(form), std::move(a), sc.domain_fractions, {}};
+        for (const auto& f : fields) d.in_field.push_back(field_linear_term(top, h, res.parts[k].spec, f, res.frame, weights));
+        res.domains.push_back(std::move(d));
       }
   }
   for (const auto& spec : sc.bars) {

@@ -75,13 +75,16 @@ struct StepChange {
 };
 
 // Orientation domains of the spontaneous steps (distortions, polar and magnetic
-// order, tilts) after the cut; applied fields and currents form no domains.
+// order, tilts) after the cut. Applied fields and currents form no domains:
+// every variant sees them in the lab frame (the terms linear in each field).
 struct DomainReport {
   std::size_t part = 0;
   std::size_t from_step = 0;  // chain step whose group the domains break (the cut, or the bulk)
   PointGroup domain_group;    // the group of variant 1: the spontaneous steps only
   AllowedForm form;           // the part's form in domain_group, sample frame
-  DomainAnalysis analysis;
+  DomainAnalysis analysis;    // analysis.average is weighted by `fractions` when they are given
+  std::vector<Rational> fractions;        // volume fractions of the variants; empty: equal
+  std::vector<FieldLinearTerm> in_field;  // one per applied field step, in the order of the steps
 };
 
 struct ScenarioResult {
@@ -101,5 +104,8 @@ struct ScenarioResult {
 };
 
 ScenarioResult run_scenario(const Scenario& scenario);
+
+// HM symbol of a tabulated setting whose axes are the sample frame's, else empty.
+std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame);
 
 } // namespace ts
