@@ -60,7 +60,8 @@ struct InverseResult {
   std::vector<MinimalBreaking> maximal; // largest order first, then canonical order of operations
 };
 
-// All subgroups of g, computed once per group and kept for the life of the program.
+// All subgroups of g, computed once per group and kept for the life of the
+// program (not guarded for threads: the engine starts none).
 const std::vector<PointGroup>& cached_subgroups(const PointGroup& g);
 
 // The search. Groups that lie inside an allowing group already found are never
