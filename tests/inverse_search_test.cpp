@@ -212,6 +212,9 @@ TEST_CASE("observe: bad input names the option or file line", "[inverse][cli]") 
   CHECK(every.exit_code == 0);
   CHECK(every.out.find("each of them nonzero") != std::string::npos);
   CHECK(every.out.find("4 found among 419 proper subgroups") != std::string::npos);
+  CliResult parent = run_cli({"observe", "m-3m", "--cut", "(001)", "--tensor", "chi_abc: sym(abc)", "--component", "chi_zzz"});
+  CHECK(parent.exit_code == 0);
+  CHECK(parent.out.find("allowed in 4mm1' itself (i-type): the signal proves no symmetry breaking") != std::string::npos);
   CliResult none = run_cli({"observe", "m-3m"});
   CHECK(none.exit_code != 0);
   CHECK(none.err.find("--response") != std::string::npos);

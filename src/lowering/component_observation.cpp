@@ -83,6 +83,12 @@ Observation observation_of(const ComponentObservation& c) {
     return std::any_of(versions.begin(), versions.end(),
                        [&](const TensorSpec& v) { return shows_components(v, c.codes, g, c.frame, c.all); });
   };
+  o.readings_in = [versions, c](const PointGroup& g) {
+    std::vector<std::string> out;
+    for (const auto& v : versions)
+      if (shows_components(v, c.codes, g, c.frame, c.all)) out.push_back(v.time_odd ? "c-type" : "i-type");
+    return out;
+  };
   o.survives_equal_domains = [versions, c](const PointGroup& parent, const PointGroup& h) {
     for (const auto& v : versions) {
       AllowedForm f = allowed_form(v, h, c.frame);

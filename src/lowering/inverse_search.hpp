@@ -30,6 +30,9 @@ struct Observation {
   // `parent` still shows the signal. Left empty when the observation has no
   // tensor to average; the search then reports "not evaluated".
   std::function<bool(const PointGroup& parent, const PointGroup& h)> survives_equal_domains;
+  // Optional: which readings of the observation a group allows (for component
+  // observations "i-type" and/or "c-type"), for reports. Empty function: none named.
+  std::function<std::vector<std::string>(const PointGroup&)> readings_in;
 };
 
 // One imposed quantity whose stabiliser in the parent is exactly a given subgroup.
@@ -57,7 +60,8 @@ struct InverseResult {
   std::vector<MinimalBreaking> maximal; // largest order first, then canonical order of operations
 };
 
-// All subgroups of g, computed once per group and kept for the life of the program.
+// All subgroups of g, computed once per group and kept for the life of the
+// program (not guarded for threads: the engine starts none).
 const std::vector<PointGroup>& cached_subgroups(const PointGroup& g);
 
 // The search. Groups that lie inside an allowing group already found are never

@@ -83,7 +83,7 @@ std::string write_observations(const ObservationRun& run, Format f) {
                                     {"components", strings(a.components)},
                                     {"type", time_parity_name(a.parity)},
                                     {"match", a.request.match},
-                                    {"allowed_in_parent", !a.parent_versions.empty()},
+                                    {"allowed_in_parent", a.allowed_in_parent()},
                                     {"parent_allows", strings(a.parent_versions)},
                                     {"subgroups_searched", static_cast<std::int64_t>(a.search.subgroups)},
                                     {"maximal_subgroups", sols}});
@@ -107,9 +107,10 @@ std::string write_observations(const ObservationRun& run, Format f) {
                        time_parity_name(a.parity) + ")";
     os << section_heading("observation: " + (a.request.label.empty() ? seen : a.request.label), f, 2);
     os << line("seen: " + seen + " in " + a.what, f);
-    if (!a.parent_versions.empty()) {
-      os << line("verdict: allowed in " + parent_symbol(r) + " itself (" + join(a.parent_versions, ", ") +
-                     "): the signal proves no symmetry breaking",
+    if (a.allowed_in_parent()) {
+      os << line("verdict: allowed in " + parent_symbol(r) + " itself" +
+                     (a.parent_versions.empty() ? "" : " (" + join(a.parent_versions, ", ") + ")") +
+                     ": the signal proves no symmetry breaking",
                  f)
          << "\n";
       continue;

@@ -102,6 +102,24 @@ std::string producer_words(const Producer& p, const PointGroup& h, const Frame& 
 
 } // namespace
 
+void answer_observation(const PointGroup& parent, const Frame& frame, const LatticeMetric& metric,
+                        const Observation& observation, ObservationAnswer& a) {
+  const LatticeKind lattice = parent.lattice();
+  const auto& cat = GroupCatalogue::builtin();
+  a.search = find_minimal_breaking(parent, observation);
+  if (a.search.allowed_in_parent && observation.readings_in) a.parent_versions = observation.readings_in(parent);
+  for (const auto& m : a.search.maximal) {
+    ObservationSolution s;
+    s.breaking = m;
+    s.id = identify(m.group, cat);
+    s.sample_symbol = sample_symbol(m.group, s.id, frame);
+    for (const auto& op : m.group.operations()) s.operations.push_back(op.symbol(lattice));
+    for (const auto& p : m.producers) s.producers.push_back(producer_words(p, m.group, frame, lattice, metric));
+    if (observation.readings_in) s.versions = observation.readings_in(m.group);
+    a.solutions.push_back(std::move(s));
+  }
+}
+
 ObservationRun run_observations(const Scenario& sc) {
   if (sc.observations.empty())
     fail(ErrorKind::usage, "no observation given", sc.source,
@@ -110,8 +128,6 @@ ObservationRun run_observations(const Scenario& sc) {
   run.scenario = run_scenario(sc);
   const ScenarioResult& res = run.scenario;
   const PointGroup& parent = res.chain.back().group;
-  const LatticeKind lattice = parent.lattice();
-  const auto& cat = GroupCatalogue::builtin();
   for (const auto& o : sc.observations) {
     ObservationAnswer a;
     a.request = o;
@@ -127,21 +143,7 @@ ObservationRun run_observations(const Scenario& sc) {
     AllowedForm names = allowed_form(t.spec, PointGroup());
     for (int code : c.codes) c.names.push_back(names.component_name(code));
     a.components = c.names;
-    std::vector<TensorSpec> versions = parity_versions(t.spec, a.parity);
-    for (const auto& v : versions)
-      if (shows_components(v, c.codes, parent, res.frame, c.all)) a.parent_versions.push_back(v.time_odd ? "c-type" : "i-type");
-    a.search = find_minimal_breaking(parent, observation_of(c));
-    for (const auto& m : a.search.maximal) {
-      ObservationSolution s;
-      s.breaking = m;
-      s.id = identify(m.group, cat);
-      s.sample_symbol = sample_symbol(m.group, s.id, res.frame);
-      for (const auto& op : m.group.operations()) s.operations.push_back(op.symbol(lattice));
-      for (const auto& p : m.producers) s.producers.push_back(producer_words(p, m.group, res.frame, lattice, sc.metric));
-      for (const auto& v : versions)
-        if (shows_components(v, c.codes, m.group, res.frame, c.all)) s.versions.push_back(v.time_odd ? "c-type" : "i-type");
-      a.solutions.push_back(std::move(s));
-    }
+    answer_observation(parent, res.frame, sc.metric, observation_of(c), a);
     run.answers.push_back(std::move(a));
   }
   return run;

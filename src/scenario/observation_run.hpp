@@ -26,7 +26,8 @@ struct ObservationAnswer {
   TensorSpec spec;
   TimeParity parity = TimeParity::either;
   std::vector<std::string> components;  // as named in the report (chi_xxx)
-  std::vector<std::string> parent_versions; // versions the parent already allows (then no search)
+  std::vector<std::string> parent_versions; // readings the parent already allows (then no search)
+  bool allowed_in_parent() const { return search.allowed_in_parent; }
   InverseResult search;
   std::vector<ObservationSolution> solutions;
 };
@@ -35,6 +36,11 @@ struct ObservationRun {
   ScenarioResult scenario; // chain and sample frame; the parent of the search is chain.back()
   std::vector<ObservationAnswer> answers;
 };
+
+// The search for any observation (components, or a signal of a bar given by its
+// own predicate) and the words for each solution, filled into `answer`.
+void answer_observation(const PointGroup& parent, const Frame& frame, const LatticeMetric& metric,
+                        const Observation& observation, ObservationAnswer& answer);
 
 // Throws Error(usage) when the scenario has no observation; bad responses,
 // parts and components are reported with the observation's file:line or option.
