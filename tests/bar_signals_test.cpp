@@ -281,3 +281,43 @@ TEST_CASE("CLI: impossible bar geometries are refused with the field named", "[b
   CHECK(file.err.find("bad.toml:8") != std::string::npos);
   CHECK(file.err.find("thickness") != std::string::npos);
 }
+
+TEST_CASE("observe: a cos phi Hall term at 2w proves a mirror perpendicular to the current at phi = 0", "[bar][inverse]") {
+  // Sodemann & Fu, PRL 115, 216806 (2015): the dipole needs at most one mirror line and is perpendicular to it, and
+  // T_Hall = D.u. A cos phi term means D along x: the mirror perpendicular to [100] on a (001) interface of a grey
+  // cubic host (4mm1'), reached by a polar distortion in that mirror plane, e.g. along [010].
+  auto r = run_cli({"observe", "m-3m", "--cut", "(001)", "--response", "second-order-conductivity", "--part", "2",
+                    "--signal", "transverse:cos(phi)", "--bar", "rotating:none", "--type", "i"});
+  REQUIRE(r.exit_code == 0);
+  CHECK(r.out.find("forbidden in 4mm1'") != std::string::npos);
+  CHECK(r.out.find("1, m [100], 1', m' [100]") != std::string::npos);
+  CHECK(r.out.find("in the plane ⊥ [100]") != std::string::npos);
+  // A longitudinal 2w reading at phi = 0 on a 3m interface is forbidden there (L = -c sin 3phi, derived above).
+  auto z = run_cli({"observe", "m-3m", "--cut", "(111)", "--response", "second-order-conductivity", "--part", "1",
+                    "--signal", "longitudinal@0", "--bar", "rotating:none", "--type", "i"});
+  REQUIRE(z.exit_code == 0);
+  CHECK(z.out.find("forbidden in 3m1'") != std::string::npos);
+  auto bad = run_cli({"observe", "m-3m", "--cut", "(001)", "--response", "second-order-conductivity", "--part", "1",
+                      "--signal", "sideways:cos(phi)"});
+  CHECK(bad.exit_code == 2);
+  CHECK(bad.err.find("longitudinal or transverse") != std::string::npos);
+}
+
+TEST_CASE("double counting: a B-expansion after a field step is evaluated without the field", "[bar][lowering]") {
+  // Onsager-Kleiner (Kleiner, Phys. Rev. 142, 318 (1966)): sigma_abk B_k is the term linear in B. Evaluating it in a
+  // group that already contains the field would count the field twice (a B^2 term read as "linear MR"), so the
+  // part keeps the group without the field step (docs/hall-bars.md).
+  Scenario sc;
+  sc.group = "m-3m";
+  sc.cut = "(001)";
+  sc.responses = {"magnetoconductivity-linear", "anomalous-hall"};
+  sc.steps = {LoweringStep{LoweringKind::magnetic_field, "[100]", "", "", "", "t"}};
+  ScenarioResult r = run_scenario(sc);
+  const PartForms& linear = r.parts[2]; // symmetric part (linear magnetoresistance), c-type
+  CHECK(linear.field_step_skipped.back());
+  CHECK(linear.counts.back() == linear.counts[1]);
+  CHECK(linear.counts.back() == 0); // no linear MR in a grey host
+  const PartForms& hall = r.parts[3]; // the anomalous Hall vector sees the field through the group
+  CHECK_FALSE(hall.field_step_skipped.back());
+  CHECK(hall.counts.back() == 1);
+}

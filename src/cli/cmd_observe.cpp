@@ -25,13 +25,18 @@ void setup_observe(CLI::App& app) {
   cmd->add_option("--component", o->seen.components, "component seen nonzero, sample frame, e.g. chi_xxx (repeatable)");
   cmd->add_option("--type", o->seen.parity, "i (time-even), c (time-odd) or either (default)");
   cmd->add_option("--match", o->seen.match, "any (default: at least one component nonzero) or all (each of them)");
+  cmd->add_option("--signal", o->seen.signal,
+                  "a bar signal instead of components: PROBE:FUNCTION (a Fourier term seen, e.g. transverse:cos(phi)) or "
+                  "PROBE@ANGLE (nonzero at that current azimuth, e.g. longitudinal@30)");
+  cmd->add_option("--bar", o->seen.bar, "the bar of --signal, CURRENT[:FIELD] as for `sample --bar` (default rotating:any)")
+      ->allow_extra_args(false);
   cmd->add_option("--label", o->seen.label, "words for the report");
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     Format f = parse_format(o->out.format);
     Scenario sc;
     if (!o->file.empty()) {
-      if (!o->sample.sc.group.empty() || !o->seen.components.empty())
+      if (!o->sample.sc.group.empty() || !o->seen.components.empty() || !o->seen.signal.empty())
         fail(ErrorKind::usage, "give either a scenario file or a group with its observation, not both", "--scenario",
              "observe --scenario film.toml, or observe m-3m --cut \"(001)\" --response ... --component ...");
       sc = load_scenario(o->file);
@@ -46,6 +51,11 @@ void setup_observe(CLI::App& app) {
              "--response second-order-conductivity --component chi_xxx");
       if (!seen.part.empty() && seen.part.find_first_not_of("0123456789") != std::string::npos)
         fail(ErrorKind::usage, "--part '" + seen.part + "' is not a part number", "--part", "1, 2, ...");
+      if (seen.components.empty() == seen.signal.empty())
+        fail(ErrorKind::usage, "give the observation as --component or as --signal", seen.where,
+             "--component chi_xxx, or --signal transverse:cos(phi)");
+      if (!seen.signal.empty() && seen.response.empty())
+        fail(ErrorKind::usage, "--signal needs --response", "--signal", "--response second-order-conductivity");
       sc.observations.push_back(seen);
     }
     emit(o->out, write_observations(run_observations(sc), f));

@@ -2,6 +2,7 @@
 
 #include "core/error.hpp"
 #include "core/text.hpp"
+#include "geometry/signal_observation.hpp"
 #include "response/response_catalogue.hpp"
 
 namespace ts {
@@ -11,6 +12,7 @@ namespace {
 struct Target {
   std::string what;
   TensorSpec spec;
+  const ResponsePart* part = nullptr; // null for a tensor spec
 };
 
 Target observed_tensor(const ObservationRequest& o, TimeParity parity) {
@@ -39,9 +41,9 @@ Target observed_tensor(const ObservationRequest& o, TimeParity parity) {
     if (!chosen && r.parts.size() == 1) chosen = &r.parts.front();
     if (!chosen)
       fail(ErrorKind::usage, "cannot tell which part of " + r.id + " the components '" + first + "' belong to", o.where,
-           "components named after a part's tensor, or a part number: " + parts);
+           "components named after a part's tensor, or a part number (part = N, --part N; a bar signal needs it): " + parts);
   }
-  return {r.name + " [" + r.id + "]: " + chosen->label, chosen->spec};
+  return {r.name + " [" + r.id + "]: " + chosen->label, chosen->spec, chosen};
 }
 
 // The label of ±v whose first nonzero index is positive: d and -d have the same
@@ -138,6 +140,24 @@ ObservationRun run_observations(const Scenario& sc) {
     if (o.match != "any" && o.match != "all")
       fail(ErrorKind::usage, "match '" + o.match + "' is neither any nor all", o.where,
            "any (at least one component nonzero) or all (each of them)");
+    if (!o.signal.empty()) {
+      if (!t.part || !is_bar_part(*t.part))
+        fail(ErrorKind::usage, a.what + " is not read by a Hall bar", o.where,
+             "a transport response (conductivity, second-order-conductivity, ...) for a bar signal");
+      SignalObservation so;
+      so.part = *t.part;
+      so.parity = a.parity;
+      so.frame = res.frame;
+      parse_signal_observation(o.signal, so, o.where);
+      BarSpec bs = parse_bar_option(o.bar, o.where + ": bar");
+      so.bar.where = bs.where;
+      set_bar_current(so.bar, bs.current, res.sample, res.system, parent.lattice(), res.metric);
+      set_bar_field(so.bar, bs.field, res.sample, res.system, parent.lattice(), res.metric);
+      a.components = {o.signal + " (bar: current " + so.bar.current_label + ", field " + so.bar.field_label + ")"};
+      answer_observation(parent, res.frame, res.metric, observation_of(so), a);
+      run.answers.push_back(std::move(a));
+      continue;
+    }
     ComponentObservation c{t.spec, {}, component_codes(t.spec, o.components, o.where), a.parity, o.match == "all",
                            res.frame};
     AllowedForm names = allowed_form(t.spec, PointGroup());

@@ -356,7 +356,8 @@ Scenario load_scenario(const std::string& path) {
     for (auto& el : *arr) {
       auto t = el.as_table();
       if (!t) fail(ErrorKind::bad_file, "each [[observation]] entry must be a table", at(path, el.source()));
-      check_keys(*t, {"label", "response", "part", "tensor", "components", "type", "match"}, path, "[[observation]]");
+      check_keys(*t, {"label", "response", "part", "tensor", "components", "type", "match", "signal", "bar"}, path,
+                 "[[observation]]");
       ObservationRequest o;
       o.where = at(path, t->source());
       o.label = get_string(*t, "label", path, false, "a string");
@@ -375,8 +376,15 @@ Scenario load_scenario(const std::string& path) {
       if (o.response.empty() == o.tensor.empty())
         fail(ErrorKind::bad_file, "an [[observation]] needs either 'response' or 'tensor'", o.where,
              "response = \"second-order-conductivity\" or tensor = \"chi_abc: sym(abc)\"");
-      if (o.components.empty())
-        fail(ErrorKind::bad_file, "an [[observation]] needs 'components'", o.where, "components = [\"chi_xxx\"]");
+      o.signal = get_string(*t, "signal", path, false, "\"transverse:cos(phi)\" or \"longitudinal@30\"");
+      std::string bar = get_string(*t, "bar", path, false, "CURRENT[:FIELD] as for --bar, e.g. \"rotating:in-plane\"");
+      if (!bar.empty()) o.bar = bar;
+      if (o.components.empty() == o.signal.empty())
+        fail(ErrorKind::bad_file, "an [[observation]] needs either 'components' or a bar 'signal'", o.where,
+             "components = [\"chi_xxx\"], or signal = \"transverse:cos(phi)\" with a response");
+      if (!o.signal.empty() && o.response.empty())
+        fail(ErrorKind::bad_file, "a bar 'signal' needs a catalogue 'response'", o.where,
+             "response = \"second-order-conductivity\"");
       sc.observations.push_back(o);
     }
   }

@@ -59,6 +59,8 @@ struct ObservationRequest {
   std::vector<std::string> components; // sample-frame names such as chi_xxx
   std::string parity = "either";       // i, c or either
   std::string match = "any";           // any: at least one component nonzero; all: each of them
+  std::string signal;                  // a bar signal instead of components: "transverse:cos(phi)", "longitudinal@30"
+  std::string bar = "rotating:any";    // the bar of a signal observation, CURRENT[:FIELD] as for --bar
   std::string where;                   // file:line or option, for messages
 };
 
