@@ -88,6 +88,7 @@ TEST_CASE("3m interface at zero field: sin 3phi and cos 3phi, no Berry-curvature
   CHECK_FALSE(dipole.reads());          // ... but no planar probe reads it
   CHECK(r.parts[1].planar.back() == PlanarReading::not_readable);
   CHECK(chi.longitudinal.zero_azimuths == std::vector<int>{0, 60, 120, 180, 240, 300});
+  CHECK(chi.longitudinal.largest_azimuths == std::vector<double>{30, 90, 150, 210, 270, 330});
 }
 
 TEST_CASE("one mirror adds a first harmonic and a Berry-dipole Hall term cos phi", "[bar][physics]") {

@@ -95,6 +95,19 @@ std::vector<int> zero_azimuths(const std::vector<FourierTerm>& terms, int parame
   return out;
 }
 
+// One term a·cos(nφ) or a·sin(nφ): |signal| peaks where nφ is a multiple of 180° (cos) or 90° off it (sin).
+std::vector<double> largest_azimuths(const std::vector<FourierTerm>& terms) {
+  if (terms.size() != 1) return {};
+  const FourierTerm& t = terms[0];
+  const int n = t.k[static_cast<int>(Angle::phi)];
+  for (int i = 1; i < angle_count; ++i)
+    if (t.k[i] != 0) return {};
+  if (n == 0) return {};
+  std::vector<double> out;
+  for (int m = 0; m < 2 * n; ++m) out.push_back(((t.sine ? 90.0 : 0.0) + 180.0 * m) / n);
+  return out;
+}
+
 } // namespace
 
 PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const BarMeasurement& m) {
@@ -133,8 +146,10 @@ PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const B
     ProbeSignal& out = probe == Probe::longitudinal ? ps.longitudinal : ps.transverse;
     out.series = contract(form, vectors);
     out.terms = real_fourier_terms(out.series);
-    if (m.rotating && !depends_on_other_angles(out.series))
+    if (m.rotating && !depends_on_other_angles(out.series)) {
       out.zero_azimuths = zero_azimuths(out.terms, form.independent());
+      out.largest_azimuths = largest_azimuths(out.terms);
+    }
   }
   // The Hall test needs the current azimuth as a variable of its own.
   bool tied = m.field == FieldGeometry::along_current || m.field == FieldGeometry::across_current;

@@ -39,6 +39,9 @@ struct ProbeSignal {
   // for every parameter value; filled when the current rotates and the signal
   // depends on no other angle.
   std::vector<int> zero_azimuths;
+  // Current azimuths (degrees, 0 <= φ < 360) at which |signal| is largest, when
+  // the signal is one harmonic of φ alone (otherwise they depend on the parameters).
+  std::vector<double> largest_azimuths;
   bool reads() const { return !terms.empty(); }
 };
 

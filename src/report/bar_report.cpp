@@ -203,6 +203,15 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         }
         std::string z = zero_text(p->zero_azimuths);
         if (p->reads() && !z.empty()) os << bullet(f) << "  reads zero for every parameter value at " << z << line(f);
+        if (!p->largest_azimuths.empty()) {
+          std::vector<std::string> at;
+          for (double d : p->largest_azimuths) {
+            char buf[16];
+            std::snprintf(buf, sizeof buf, "%.4g°", d);
+            at.push_back(buf);
+          }
+          os << bullet(f) << "  largest |signal| at φ = " << join(at, ", ") << line(f);
+        }
       }
       if (ps.hall_split && ps.transverse.reads()) {
         os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.current_order + 1) + " + H: gradient part ", f)
@@ -310,7 +319,9 @@ toml::array bars_json(const ScenarioResult& r) {
       for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
         toml::array zeros;
         for (int z : p->zero_azimuths) zeros.push_back(z);
-        toml::table pt{{"terms", terms_json(p->terms, form)}, {"zero_azimuths_deg", zeros}};
+        toml::array largest;
+        for (double d : p->largest_azimuths) largest.push_back(d);
+        toml::table pt{{"terms", terms_json(p->terms, form)}, {"zero_azimuths_deg", zeros}, {"largest_azimuths_deg", largest}};
         if (p->reads()) {
           GiNaC::ex e = probe_coefficient_ex(ps, *p, form, sy);
           pt.insert("R_n", ex_text(e));
