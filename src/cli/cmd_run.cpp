@@ -2,6 +2,7 @@
 #include "cli/commands.hpp"
 #include "cli/frame_options.hpp"
 #include "core/error.hpp"
+#include "lowering/structure_file.hpp"
 #include "report/scenario_report.hpp"
 
 #include <memory>
@@ -30,10 +31,13 @@ void setup_sample(CLI::App& app) {
     std::vector<std::string> lowerings;
     std::string a, b, c;
     bool colourless = false;
+    std::string structure_file, occupancy = "refuse";
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
-  cmd->add_option("group", o->sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')")->required();
+  cmd->add_option("group", o->sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')");
+  cmd->add_option("--structure-file", o->structure_file, "parent crystal from a CIF or mCIF file instead of a group");
+  cmd->add_option("--occupancy", o->occupancy, "partial occupancy in the file: refuse (default) or ignore");
   cmd->add_option("--cut", o->sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
   cmd->add_option("--x", o->sc.x, "in-plane direction for sample x");
   cmd->add_option("--z", o->sc.z, "sample z for a bulk sample (no cut)");
@@ -56,6 +60,14 @@ void setup_sample(CLI::App& app) {
     for (std::size_t i = 0; i < o->lowerings.size(); ++i)
       sc.steps.push_back(parse_lowering_option(o->lowerings[i], "--lower " + o->lowerings[i]));
     sc.metric = metric_option({"", "", o->a, o->b, o->c});
+    if (sc.group.empty() == o->structure_file.empty())
+      fail(ErrorKind::usage, "give the parent crystal once: a point group or --structure-file", "group/--structure-file",
+           "tensorsieve sample m-3m ..., or tensorsieve sample --structure-file crystal.mcif ...");
+    if (!o->structure_file.empty()) {
+      StructureFileOptions options;
+      options.occupancy = parse_occupancy_policy(o->occupancy, "--occupancy", ErrorKind::usage);
+      sc.structure = read_structure_file(o->structure_file, options);
+    }
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");

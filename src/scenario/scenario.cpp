@@ -1,9 +1,11 @@
 #include "scenario/scenario.hpp"
 
 #include "core/error.hpp"
+#include "lowering/structure_file.hpp"
 
 #include <toml++/toml.h>
 
+#include <filesystem>
 #include <set>
 
 namespace ts {
@@ -133,7 +135,7 @@ Scenario load_scenario(const std::string& path) {
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
-  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic"}, path, "[crystal]");
+  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy"}, path, "[crystal]");
   sc.group = get_string(*crystal, "group", path, false, "a point-group symbol such as m-3m or 4/mmm1'");
   if (auto nm = crystal->get("nonmagnetic")) {
     auto b = nm->value<bool>();
@@ -144,6 +146,17 @@ Scenario load_scenario(const std::string& path) {
     auto t = st->as_table();
     if (!t) fail(ErrorKind::bad_file, "[crystal.structure] must be a table", at(path, st->source()));
     sc.structure = parse_structure(*t, path + ":[crystal.structure]");
+  }
+  if (auto file = crystal->get("file")) {
+    if (sc.structure) fail(ErrorKind::bad_file, "[crystal] gives both a file and a structure; keep one", at(path, file->source()));
+    StructureFileOptions options;
+    const std::string occupancy = get_string(*crystal, "occupancy", path, false, "\"refuse\" or \"ignore\"");
+    if (!occupancy.empty())
+      options.occupancy = parse_occupancy_policy(occupancy, at(path, crystal->get("occupancy")->source()), ErrorKind::bad_file);
+    // A relative path is read from the scenario's folder, so a scenario and its CIF travel together.
+    std::filesystem::path cif = get_string(*crystal, "file", path, true, "a CIF or mCIF path, relative to this file");
+    if (cif.is_relative()) cif = std::filesystem::path(path).parent_path() / cif;
+    sc.structure = read_structure_file(cif.string(), options);
   }
   if (sc.group.empty() && !sc.structure)
     fail(ErrorKind::bad_file, "[crystal] needs a point group or a structure", at(path, crystal->source()),

@@ -3,6 +3,7 @@
 #include "core/error.hpp"
 #include "lowering/curie.hpp"
 #include "lowering/glazer_tilts.hpp"
+#include "lowering/structure_file.hpp"
 #include "response/response_catalogue.hpp"
 #include "tensor/param_tensor.hpp"
 
@@ -30,6 +31,7 @@ struct Parent {
   PointGroup group;
   std::string system;
   std::string note;
+  std::optional<StructureSymmetry> symmetry;
 };
 
 Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
@@ -67,6 +69,8 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
   p.note = "structure: space group " + sym.space_group_symbol + " (" + std::to_string(sym.space_group_number) +
            "), point group " + id.type->symbol + (st.magnetic ? " with the given moments" : ", non-magnetic") +
            " (spglib, symprec " + std::to_string(sym.symprec) + ")";
+  for (const auto& n : structure_symmetry_notes(st, sym)) p.note += "; " + n;
+  p.symmetry = sym;
   if (!metric.known()) {
     auto length = [&](int r) {
       double s = 0;
@@ -265,6 +269,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
   LatticeMetric metric = sc.metric;
   Parent parent = parent_group(sc, metric);
   res.parent_note = parent.note;
+  res.structure_symmetry = parent.symmetry;
   const LatticeKind lattice = parent.group.lattice();
   Vec3 normal{};
   std::string normal_label;
