@@ -107,6 +107,6 @@ int main() {
     std::printf("\n");
   }
   if (failed) std::printf("  %d of the files failed (see tensorsieve screen on the folder)\n", failed);
-  fs::remove_all(dir);
+  if (!std::getenv("TENSORSIEVE_BENCH_KEEP")) fs::remove_all(dir);
   return 0;
 }
