@@ -16,6 +16,7 @@ const char* kinds_help =
     "strain, shear, polar, electric-field, moment, magnetic-field, current, magnetic-group, tilts";
 
 std::string at(const std::string& file, const toml::source_region& s) {
+  if (s.begin.line == 0) return file; // a table built in memory (a Python dict) has no lines
   return file + ":" + std::to_string(s.begin.line) + ":" + std::to_string(s.begin.column);
 }
 
@@ -129,6 +130,10 @@ Scenario load_scenario(const std::string& path) {
     fail(ErrorKind::bad_file, std::string(e.description()), at(path, e.source()),
          "a TOML scenario file (schema in docs/scenarios.md)");
   }
+  return scenario_from_table(root, path);
+}
+
+Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   Scenario sc;
   sc.source = path;
   check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report"}, path, "the scenario");
