@@ -97,3 +97,29 @@ TEST_CASE("screen reads list files and refuses what it cannot start on") {
   CHECK(format.exit_code == 2);
   CHECK(has(format.err, "text, markdown, csv or jsonl"));
 }
+
+TEST_CASE("the progress bar is drawn on a terminal only, and never into the output") {
+  // `script` (util-linux, Essential on Debian) runs the command on a pseudo-terminal
+  // and copies what the terminal shows to its own standard output.
+  ts::test::TempDir dir;
+  fill_batch(dir.path());
+  auto on_terminal = [&](const std::string& extra) {
+    const std::string inner = ts::test::shell_quote(TENSORSIEVE_BINARY) + " screen " +
+                              ts::test::shell_quote(dir.path().string()) + " --response anomalous-hall -f csv -o " +
+                              ts::test::shell_quote((dir / "rows.csv").string()) + extra;
+    const std::string cmd = "script -qec " + ts::test::shell_quote(inner) + " /dev/null > " +
+                            ts::test::shell_quote((dir / "terminal.txt").string()) + " 2>&1 </dev/null";
+    const int status = std::system(cmd.c_str());
+    REQUIRE(WIFEXITED(status));
+    CHECK(WEXITSTATUS(status) == 5); // the broken file of the batch
+    return ts::test::read_file(dir / "terminal.txt");
+  };
+  const std::string shown = on_terminal("");
+  CHECK(has(shown, "49/49"));
+  CHECK(has(shown, "files/s"));
+  CHECK(has(shown, "s left"));
+  const std::string rows = ts::test::read_file(dir / "rows.csv");
+  CHECK(lines(rows) == 50);
+  CHECK_FALSE(has(rows, "files/s"));
+  CHECK_FALSE(has(on_terminal(" --quiet"), "files/s"));
+}

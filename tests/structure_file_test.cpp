@@ -58,6 +58,19 @@ TEST_CASE("Cr2O3 above the Neel temperature from its symbol alone: R-3c, -3m1'")
   CHECK(has(r.out, "operations expanded from the symbol R -3 c"));
 }
 
+TEST_CASE("CIF 2 tag names are read; CIF 2 syntax beyond them is refused with its line") {
+  const CrystalStructure cell = read_structure_file(data("nacl-cif2-names.cif"), {});
+  CHECK(cell.sites.size() == 8); // 4 Na + 4 Cl in the conventional cell: common practice
+  const StructureSymmetry sym = find_structure_symmetry(cell);
+  CHECK(sym.space_group_number == 225); // rock salt, Fm-3m: common practice
+  CHECK(sym.point_group_symbol == "m-3m");
+  const auto r = run_cli({"sample", "--structure-file", data("malformed/cif2-triple-quoted.cif"), "--response",
+                          "conductivity"});
+  CHECK(r.exit_code == 5);
+  CHECK(has(r.err, "cif2-triple-quoted.cif:5:"));
+  CHECK(has(r.err, "not lists, tables or triple-quoted strings"));
+}
+
 TEST_CASE("bcc Fe with moments along [001]: I4/mm'm', anomalous Hall allowed") {
   // I4/mm'm', BNS 139.537, and sigma_xy of a ferromagnet along z: common practice
   // (BNS number from memory; spglib agrees).

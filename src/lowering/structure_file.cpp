@@ -255,16 +255,14 @@ OperationList read_operations(const gemmi::cif::Block& b, const Source& src, dou
   OperationList list;
   const gemmi::cif::Item* item = nullptr;
   std::vector<SpaceOperation> ops = read_operation_column(
-      b, {"_space_group_symop_magn_operation.xyz", "_space_group_symop_magn_operation_xyz",
-          "_space_group_symop.magn_operation_xyz"},
+      b, {"_space_group_symop_magn_operation_xyz"},
       true, src, &item);
   if (!ops.empty()) {
     list.magnetic = true;
     list.item = item;
     const gemmi::cif::Item* centering_item = nullptr;
     std::vector<SpaceOperation> centerings = read_operation_column(
-        b, {"_space_group_symop_magn_centering.xyz", "_space_group_symop_magn_centering_xyz",
-            "_space_group_symop.magn_centering_xyz"},
+        b, {"_space_group_symop_magn_centering_xyz"},
         true, src, &centering_item);
     if (centerings.empty()) {
       SpaceOperation identity;
@@ -292,7 +290,7 @@ OperationList read_operations(const gemmi::cif::Block& b, const Source& src, dou
                ")";
   } else {
     ops = read_operation_column(
-        b, {"_space_group_symop_operation_xyz", "_space_group_symop.operation_xyz", "_symmetry_equiv_pos_as_xyz"},
+        b, {"_space_group_symop_operation_xyz", "_symmetry_equiv_pos_as_xyz"},
         false, src, &item);
     list.item = item;
     if (!ops.empty()) {
@@ -302,8 +300,7 @@ OperationList read_operations(const gemmi::cif::Block& b, const Source& src, dou
       list.how = std::to_string(list.ops.size()) + " operations stated";
     } else {
       std::string hm;
-      for (const char* tag : {"_space_group_name_H-M_alt", "_symmetry_space_group_name_H-M",
-                              "_space_group.name_H-M_alt"})
+      for (const char* tag : {"_space_group_name_H-M_alt", "_symmetry_space_group_name_H-M"})
         if (const gemmi::cif::Item* p = b.find_pair_item(tag)) {
           hm = gemmi::cif::as_string(p->pair[1]);
           list.item = p;
@@ -393,11 +390,10 @@ std::vector<ListedSite> read_sites(const gemmi::cif::Block& b, const Source& src
   return out;
 }
 
-// Moments along unit vectors parallel to a, b, c (the mCIF convention), in both
-// the dotted CIF 2 spelling and the older underscore one.
+// Moments along unit vectors parallel to a, b, c (the mCIF convention).
 bool read_moments(const gemmi::cif::Block& b, const Source& src, const Mat& lattice, std::vector<ListedSite>* sites) {
   auto& block = const_cast<gemmi::cif::Block&>(b);
-  for (const char* prefix : {"_atom_site_moment.", "_atom_site_moment_"}) {
+  for (const char* prefix : {"_atom_site_moment_"}) {
     gemmi::cif::Table t = block.find(prefix, {"label", "crystalaxis_x", "crystalaxis_y", "crystalaxis_z"});
     if (!t.ok()) {
       if (item_of(b, std::string(prefix) + "label"))
@@ -582,8 +578,7 @@ CrystalStructure read_block(const gemmi::cif::Block& block, const std::string& n
   std::set<std::pair<IMat, bool>> parts;
   for (const auto& op : ops.ops)
     if (parts.insert({op.w, op.primed}).second) out.stated_point_parts.push_back({op.w, op.primed});
-  for (const char* tag : {"_space_group_magn.number_BNS", "_space_group_magn_number_BNS",
-                          "_space_group.magn_number_BNS"})
+  for (const char* tag : {"_space_group_magn_number_BNS"})
     if (const gemmi::cif::Item* p = block.find_pair_item(tag)) {
       out.stated_bns_number = gemmi::cif::as_string(p->pair[1]);
       break;
@@ -620,10 +615,22 @@ CrystalStructure read_structure_text(const std::string& text, const std::string&
         message = message.substr(end + 2);
       }
     }
+    const bool cif2 = text.compare(0, 10, "#\\#CIF_2.0") == 0;
     fail(ErrorKind::bad_file, "not a readable CIF: " + message, where,
-         "CIF 1.1 or CIF 2 syntax: data_ blocks of _tag value pairs and loop_ lists whose value count is a "
-         "multiple of the tag count");
+         std::string("CIF 1.1 syntax: data_ blocks of _tag value pairs and loop_ lists whose value count is a "
+                     "multiple of the tag count") +
+             (cif2 ? "; of CIF 2 the dotted tag names are read, but not lists, tables or triple-quoted strings"
+                   : ""));
   }
+  // DDLm (CIF 2) names separate category and attribute by a dot
+  // (_cell.length_a, _atom_site_moment.label); the older names use an
+  // underscore. One spelling is looked up below, so the dots become underscores.
+  for (auto& block : doc.blocks)
+    for (auto& item : block.items) {
+      if (item.type == gemmi::cif::ItemType::Pair) std::replace(item.pair[0].begin(), item.pair[0].end(), '.', '_');
+      if (item.type == gemmi::cif::ItemType::Loop)
+        for (auto& tag : item.loop.tags) std::replace(tag.begin(), tag.end(), '.', '_');
+    }
   for (const auto& block : doc.blocks)
     if (block.find_pair_item("_cell_length_a") || block.find_loop_item("_atom_site_label"))
       return read_block(block, name, options);
