@@ -176,6 +176,17 @@ TEST_CASE("a scenario reads its crystal from a file next to it") {
   CHECK(has(bad.err, "bad.toml:4"));
   CHECK(has(bad.err, "unknown occupancy handling 'sometimes'"));
 
+  std::ofstream(dir / "tolerance.toml") << "responses = [\"conductivity\"]\n[crystal]\nfile = \"cif/cr2o3.mcif\"\n"
+                                           "symprec = 2\n";
+  const auto tolerance = run_cli({"run", (dir / "tolerance.toml").string()});
+  CHECK(tolerance.exit_code == 5);
+  CHECK(has(tolerance.err, "tolerance.toml:4"));
+  CHECK(has(tolerance.err, "'symprec' must be a distance"));
+  const auto zero = run_cli({"sample", "--structure-file", data("cr2o3-afm.mcif"), "--symprec", "0", "--response",
+                             "conductivity"});
+  CHECK(zero.exit_code == 2);
+  CHECK(has(zero.err, "--symprec"));
+
   const auto both = run_cli({"sample", "m-3m", "--structure-file", data("cr2o3-afm.mcif"), "--response", "conductivity"});
   CHECK(both.exit_code == 2);
   CHECK(has(both.err, "a point group or --structure-file"));

@@ -32,12 +32,14 @@ void setup_sample(CLI::App& app) {
     std::string a, b, c;
     bool colourless = false;
     std::string structure_file, occupancy = "refuse";
+    double symprec = StructureFileOptions{}.symprec;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
   cmd->add_option("group", o->sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')");
   cmd->add_option("--structure-file", o->structure_file, "parent crystal from a CIF or mCIF file instead of a group");
   cmd->add_option("--occupancy", o->occupancy, "partial occupancy in the file: refuse (default) or ignore");
+  cmd->add_option("--symprec", o->symprec, "distance tolerance for the file, Angstrom")->capture_default_str();
   cmd->add_option("--cut", o->sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
   cmd->add_option("--x", o->sc.x, "in-plane direction for sample x");
   cmd->add_option("--z", o->sc.z, "sample z for a bulk sample (no cut)");
@@ -66,6 +68,9 @@ void setup_sample(CLI::App& app) {
     if (!o->structure_file.empty()) {
       StructureFileOptions options;
       options.occupancy = parse_occupancy_policy(o->occupancy, "--occupancy", ErrorKind::usage);
+      if (!(o->symprec > 0 && o->symprec < 1))
+        fail(ErrorKind::usage, "symprec out of range", "--symprec", "0 < symprec < 1 Angstrom");
+      options.symprec = o->symprec;
       sc.structure = read_structure_file(o->structure_file, options);
     }
     if (sc.responses.empty() && sc.tensors.empty())

@@ -140,7 +140,7 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
-  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy"}, path, "[crystal]");
+  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy", "symprec"}, path, "[crystal]");
   sc.group = get_string(*crystal, "group", path, false, "a point-group symbol such as m-3m or 4/mmm1'");
   if (auto nm = crystal->get("nonmagnetic")) {
     auto b = nm->value<bool>();
@@ -158,6 +158,13 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
     const std::string occupancy = get_string(*crystal, "occupancy", path, false, "\"refuse\" or \"ignore\"");
     if (!occupancy.empty())
       options.occupancy = parse_occupancy_policy(occupancy, at(path, crystal->get("occupancy")->source()), ErrorKind::bad_file);
+    if (auto p = crystal->get("symprec")) {
+      auto v = p->value<double>();
+      if (!v || !(*v > 0 && *v < 1))
+        fail(ErrorKind::bad_file, "'symprec' must be a distance in Angstrom between 0 and 1", at(path, p->source()),
+             "symprec = 0.01 (the default for files)");
+      options.symprec = *v;
+    }
     // A relative path is read from the scenario's folder, so a scenario and its CIF travel together.
     std::filesystem::path cif = get_string(*crystal, "file", path, true, "a CIF or mCIF path, relative to this file");
     if (cif.is_relative()) cif = std::filesystem::path(path).parent_path() / cif;
