@@ -47,6 +47,20 @@ TEST_CASE("Cr2O3 with moments along c: R-3'c', point group -3'm', the magnetoele
   CHECK(has(r.out, "parameters:  alpha_xx, alpha_zz"));
 }
 
+TEST_CASE("Cr2O3 in rhombohedral axes gives the same groups, turned into hexagonal axes") {
+  const CrystalStructure cell = read_structure_file(data("cr2o3-afm-rhombohedral.mcif"), {});
+  CHECK(cell.sites.size() == 30); // three primitive cells of 10 atoms
+  const StructureSymmetry sym = find_structure_symmetry(cell);
+  CHECK(sym.bns_number == "167.106");
+  const auto r = run_cli({"sample", "--structure-file", data("cr2o3-afm-rhombohedral.mcif"), "--response",
+                          "linear-magnetoelectric"});
+  REQUIRE(r.exit_code == 0);
+  CHECK(has(r.out, "rhombohedral axes of the file turned into hexagonal axes"));
+  CHECK(has(r.out, "all 12 stated point operations confirmed"));
+  CHECK(has(r.out, "alpha_xx = alpha_yy  alpha_xx"));
+  CHECK(has(r.out, "parameters:  alpha_xx, alpha_zz"));
+}
+
 TEST_CASE("Cr2O3 above the Neel temperature from its symbol alone: R-3c, -3m1'") {
   const StructureSymmetry sym = symmetry_of("cr2o3-paramagnetic.cif");
   CHECK(sym.space_group_number == 167);       // International Tables, corundum type: common practice

@@ -353,8 +353,7 @@ Vec cartesian(const Mat& m, const Vec& f) {
 
 double length(const Vec& v) { return std::sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2]); }
 
-std::vector<ListedSite> read_sites(const gemmi::cif::Block& b, const Source& src, const Mat& lattice,
-                                   const gemmi::cif::Item** atoms_item) {
+std::vector<ListedSite> read_sites(const gemmi::cif::Block& b, const Source& src, const gemmi::cif::Item** atoms_item) {
   gemmi::SmallStructure small = gemmi::make_small_structure_from_block(b);
   *atoms_item = b.find_loop_item("_atom_site_label");
   if (!*atoms_item) *atoms_item = b.find_pair_item("_atom_site_label");
@@ -386,7 +385,6 @@ std::vector<ListedSite> read_sites(const gemmi::cif::Block& b, const Source& src
     site.species = s.element == gemmi::El::X ? s.type_symbol : s.element_and_charge_symbol();
     out.push_back(site);
   }
-  (void)lattice;
   return out;
 }
 
@@ -539,6 +537,82 @@ std::vector<CellSite> expand(const std::vector<ListedSite>& listed, const Operat
   return cell;
 }
 
+bool is_rhombohedral_cell(const Mat& m) {
+  double len[3], cosine[3];
+  for (int i = 0; i < 3; ++i) len[i] = length(m[i]);
+  for (int i = 0; i < 3; ++i) {
+    const Vec& u = m[(i + 1) % 3];
+    const Vec& v = m[(i + 2) % 3];
+    cosine[i] = (u[0] * v[0] + u[1] * v[1] + u[2] * v[2]) / (length(u) * length(v));
+  }
+  return std::fabs(len[0] - len[1]) < 1e-6 * len[0] && std::fabs(len[1] - len[2]) < 1e-6 * len[0] &&
+         std::fabs(cosine[0] - cosine[1]) < 1e-9 && std::fabs(cosine[1] - cosine[2]) < 1e-9 &&
+         std::fabs(cosine[0]) > 1e-9 && std::fabs(cosine[0] + 0.5) > 1e-9;
+}
+
+// A rhombohedral cell (a = b = c, alpha = beta = gamma) has its 3-fold axis
+// along a + b + c, so its point operations are not exact in a frame with a
+// along x; the rest of the program wants the hexagonal axes of the same
+// lattice (obverse setting: a_h = a - b, b_h = b - c, c_h = a + b + c, three
+// times the volume), with c_h along z. Atoms, moments and the stated point
+// operations are carried over.
+void to_hexagonal_axes(CrystalStructure* st) {
+  const Mat r = st->lattice;
+  Mat h{};
+  for (int k = 0; k < 3; ++k) {
+    h[0][k] = r[0][k] - r[1][k];
+    h[1][k] = r[1][k] - r[2][k];
+    h[2][k] = r[0][k] + r[1][k] + r[2][k];
+  }
+  const double a = length(h[0]), c = length(h[2]);
+  Mat hex{};
+  lattice_from_cell_parameters({a, a, c, 90, 90, 120}, &hex);
+  // New Cartesian = Q old Cartesian, Q = L^T H^-T (L: new rows, H: old hexagonal rows).
+  const Mat h_inv = inverse(h); // H^-1; H^-T = transpose
+  Mat q{};
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j)
+      for (int k = 0; k < 3; ++k) q[i][j] += hex[k][i] * h_inv[j][k];
+  std::vector<AtomSite> sites;
+  const Vec centerings[3] = {{0, 0, 0}, {2.0 / 3, 1.0 / 3, 1.0 / 3}, {1.0 / 3, 2.0 / 3, 2.0 / 3}};
+  for (const auto& s : st->sites) {
+    const Vec cart = cartesian(r, s.frac);
+    Vec f{}; // f_h = H^-T r
+    for (int i = 0; i < 3; ++i)
+      for (int k = 0; k < 3; ++k) f[i] += h_inv[k][i] * cart[k];
+    Vec m{};
+    for (int i = 0; i < 3; ++i)
+      for (int k = 0; k < 3; ++k) m[i] += q[i][k] * s.moment[k];
+    for (const auto& t : centerings) {
+      AtomSite n = s;
+      for (int i = 0; i < 3; ++i) {
+        const double v = f[i] + t[i];
+        n.frac[i] = v - std::floor(v + 1e-9);
+      }
+      n.moment = m;
+      sites.push_back(n);
+    }
+  }
+  st->sites = sites;
+  st->lattice = hex;
+  // f_r = T^T f_h with T the integer rows above, so W_h = T^-T W_r T^T.
+  const IMat tt{{{1, 0, 1}, {-1, 1, 1}, {0, -1, 1}}};
+  Mat tt_inv = inverse({Vec{1, 0, 1}, Vec{-1, 1, 1}, Vec{0, -1, 1}});
+  for (auto& part : st->stated_point_parts) {
+    IMat w{};
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j) {
+        double v = 0;
+        for (int k = 0; k < 3; ++k)
+          for (int l = 0; l < 3; ++l) v += tt_inv[i][k] * part.first[k][l] * tt[l][j];
+        w[i][j] = static_cast<int>(std::lround(v));
+      }
+    part.first = w;
+  }
+  st->reading_notes.push_back("rhombohedral axes of the file turned into hexagonal axes (obverse, c along z, a = " +
+                              number_text(a) + " A, c = " + number_text(c) + " A)");
+}
+
 CrystalStructure read_block(const gemmi::cif::Block& block, const std::string& name,
                             const StructureFileOptions& options) {
   Source src{name, block.name};
@@ -547,10 +621,11 @@ CrystalStructure read_block(const gemmi::cif::Block& block, const std::string& n
   out.where = src.at(nullptr);
   out.symprec = options.symprec;
   out.lattice = read_cell(block, src);
+  // gemmi's symbol lookup needs them to choose hexagonal or rhombohedral axes.
   const double alpha = cell_number(block, "_cell_angle_alpha", src, true);
   const double gamma = cell_number(block, "_cell_angle_gamma", src, true);
   const gemmi::cif::Item* atoms_item = nullptr;
-  std::vector<ListedSite> listed = read_sites(block, src, out.lattice, &atoms_item);
+  std::vector<ListedSite> listed = read_sites(block, src, &atoms_item);
   const bool moments = read_moments(block, src, out.lattice, &listed);
   OperationList ops = read_operations(block, src, alpha, gamma);
 
@@ -587,6 +662,7 @@ CrystalStructure read_block(const gemmi::cif::Block& block, const std::string& n
                                                           (listed.size() == 1 ? "" : "s") + ", " +
                                                           std::to_string(cell.size()) + " atoms in the cell; " +
                                                           ops.how);
+  if (is_rhombohedral_cell(out.lattice)) to_hexagonal_axes(&out);
   return out;
 }
 
