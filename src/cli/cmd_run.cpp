@@ -2,6 +2,7 @@
 #include "cli/commands.hpp"
 #include "cli/sample_options.hpp"
 #include "core/error.hpp"
+#include "lowering/structure_file.hpp"
 #include "report/scenario_report.hpp"
 
 #include <algorithm>
@@ -34,10 +35,15 @@ void setup_sample(CLI::App& app) {
     std::string fractions;
     std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields;
     std::string waveform = "sine";
+    std::string structure_file, occupancy = "refuse";
+    double symprec = StructureFileOptions{}.symprec;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
-  add_sample_options(*cmd, o->sample, true);
+  add_sample_options(*cmd, o->sample, false);
+  cmd->add_option("--structure-file", o->structure_file, "parent crystal from a CIF or mCIF file instead of a group");
+  cmd->add_option("--occupancy", o->occupancy, "partial occupancy in the file: refuse (default) or ignore");
+  cmd->add_option("--symprec", o->symprec, "distance tolerance for the file, Angstrom")->capture_default_str();
   cmd->add_option("--response", o->sample.sc.responses, "response id from `tensorsieve responses` (repeatable)");
   cmd->add_option("--tensor", o->sample.sc.tensors, "extra tensor spec (repeatable)");
   cmd->add_flag("--domains", o->sample.sc.domains, "orientation domains of the lowering and their average");
@@ -62,6 +68,17 @@ void setup_sample(CLI::App& app) {
   cmd->callback([o] {
     Scenario sc = scenario_from_options(o->sample);
     apply_fractions_option(o->fractions, sc);
+    if (sc.group.empty() == o->structure_file.empty())
+      fail(ErrorKind::usage, "give the parent crystal once: a point group or --structure-file", "group/--structure-file",
+           "tensorsieve sample m-3m ..., or tensorsieve sample --structure-file crystal.mcif ...");
+    if (!o->structure_file.empty()) {
+      StructureFileOptions options;
+      options.occupancy = parse_occupancy_policy(o->occupancy, "--occupancy", ErrorKind::usage);
+      if (!(o->symprec > 0 && o->symprec < 1))
+        fail(ErrorKind::usage, "symprec out of range", "--symprec", "0 < symprec < 1 Angstrom");
+      options.symprec = o->symprec;
+      sc.structure = read_structure_file(o->structure_file, options);
+    }
     for (const auto& b : o->bars) {
       BarSpec spec = parse_bar_option(b, "--bar " + b);
       spec.waveform = o->waveform;

@@ -24,5 +24,6 @@ void setup_run(CLI::App& app);
 void setup_sample(CLI::App& app);
 void setup_responses(CLI::App& app);
 void setup_observe(CLI::App& app);
+void setup_screen(CLI::App& app);
 
 } // namespace ts::cli

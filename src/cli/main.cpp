@@ -31,6 +31,7 @@ int main(int argc, char** argv) {
   ts::cli::setup_sample(app);
   ts::cli::setup_responses(app);
   ts::cli::setup_observe(app);
+  ts::cli::setup_screen(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

@@ -53,7 +53,9 @@ public:
 private:
   std::vector<Operation> ops_;
   LatticeKind lattice_ = LatticeKind::orthogonal;
-  mutable std::vector<Operation> generators_cache_; // filled on first use
+  // Filled on first use, so a PointGroup shared between threads must have had
+  // generators() called once before it is shared (the catalogue does this).
+  mutable std::vector<Operation> generators_cache_;
 };
 
 // Throws Error(bad_group) unless every operation maps the lattice of the

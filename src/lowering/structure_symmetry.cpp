@@ -140,20 +140,12 @@ Mat lattice_from_parameters(const toml::table& block, const std::string& where) 
     if (i >= 3 && (p[i] <= 0 || p[i] >= 180))
       bad(where, n, names[i], "must lie strictly between 0 and 180 degrees, got " + number_text(p[i]), valid);
   }
-  const double ca = cos_degrees(p[3]), cb = cos_degrees(p[4]), cg = cos_degrees(p[5]);
-  const double sg = std::sqrt(1 - cg * cg);
-  const double cy = (ca - cb * cg) / sg;
-  const double cz2 = 1 - cb * cb - cy * cy;
-  if (cz2 <= 1e-12)
+  Mat m{};
+  if (!lattice_from_cell_parameters({p[0], p[1], p[2], p[3], p[4], p[5]}, &m))
     bad(where, block.get("alpha"), "alpha, beta, gamma",
         "these angles do not form a cell (each must be smaller than the sum of the other two, "
         "and all three below 360 together)",
         valid);
-  // a along x, b in the xy plane, c completing a right-handed set.
-  Mat m{};
-  m[0] = {p[0], 0, 0};
-  m[1] = {p[1] * cg, p[1] * sg, 0};
-  m[2] = {p[2] * cb, p[2] * cy, p[2] * std::sqrt(cz2)};
   return m;
 }
 
@@ -264,6 +256,20 @@ std::string trimmed(const char* s) {
 
 } // namespace
 
+bool lattice_from_cell_parameters(const std::array<double, 6>& p, std::array<std::array<double, 3>, 3>* lattice) {
+  const double ca = cos_degrees(p[3]), cb = cos_degrees(p[4]), cg = cos_degrees(p[5]);
+  const double sg = std::sqrt(1 - cg * cg);
+  const double cy = (ca - cb * cg) / sg;
+  const double cz2 = 1 - cb * cb - cy * cy;
+  if (cz2 <= 1e-12) return false;
+  // a along x, b in the xy plane, c completing a right-handed set.
+  Mat& m = *lattice;
+  m[0] = {p[0], 0, 0};
+  m[1] = {p[1] * cg, p[1] * sg, 0};
+  m[2] = {p[2] * cb, p[2] * cy, p[2] * std::sqrt(cz2)};
+  return true;
+}
+
 std::array<double, 3> fractional_to_cartesian(const CrystalStructure& cell, const std::array<double, 3>& f) {
   return to_cartesian(cell.lattice, f);
 }
@@ -365,6 +371,8 @@ StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double s
              kSpglibValid);
       }
       out.magnetic_uni_number = ds->uni_number;
+      out.magnetic_type = ds->msg_type;
+      out.bns_number = spg_get_magnetic_spacegroup_type(ds->uni_number).bns_number;
       const SpglibSpacegroupType sg = spg_get_spacegroup_type(ds->hall_number);
       out.space_group_number = sg.number;
       out.space_group_symbol = trimmed(sg.international_short);

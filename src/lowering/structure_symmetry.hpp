@@ -25,6 +25,7 @@
 
 #include <array>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace ts {
@@ -45,6 +46,12 @@ struct CrystalStructure {
   // Where the structure came from ("cell.toml:[structure]"), quoted in errors
   // raised by the symmetry search. Empty for structures built in code.
   std::string where;
+  // Filled by read_structure_file (structure_file.hpp) for CIF and mCIF input:
+  // what the file states, cross-checked against the search, and what reading
+  // it assumed (partial occupancy ignored, sites merged, ...).
+  std::string stated_bns_number; // _space_group_magn.number_BNS, empty when not stated
+  std::vector<std::pair<std::array<std::array<int, 3>, 3>, bool>> stated_point_parts; // (W, primed)
+  std::vector<std::string> reading_notes;
 };
 
 struct PointOperation {
@@ -69,6 +76,8 @@ struct StructureSymmetry {
   // 1', is a symmetry of every non-magnetic crystal and is left to the caller).
   std::vector<PointOperation> point_operations;
   int magnetic_uni_number = 0; // UNI serial number (1..1651) from spglib when magnetic, else 0
+  int magnetic_type = 0;       // 1..4 (type IV: anti-translations, grey point group) when magnetic, else 0
+  std::string bns_number;      // BNS number of the magnetic space group, e.g. "167.108", when magnetic
   double symprec = 1e-5;       // the tolerance the search used
 };
 
@@ -90,6 +99,10 @@ CrystalStructure parse_structure(const toml::table& block, const std::string& wh
 StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double symprec);
 // Same, with the structure's own tolerance `cell.symprec` (1e-5 unless the file set it).
 StructureSymmetry find_structure_symmetry(const CrystalStructure& cell);
+
+// Lattice rows a, b, c from a, b, c (Angstrom) and alpha, beta, gamma (degrees):
+// a along x, b in the xy plane. False when the angles do not close a cell.
+bool lattice_from_cell_parameters(const std::array<double, 6>& parameters, std::array<std::array<double, 3>, 3>* lattice);
 
 // r = M^T f: Cartesian position (Angstrom) of fractional coordinates f.
 std::array<double, 3> fractional_to_cartesian(const CrystalStructure& cell,

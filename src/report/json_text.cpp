@@ -10,4 +10,19 @@ std::string json_text(const toml::table& t) {
   return os.str();
 }
 
+std::string json_line(const toml::table& t) {
+  // JSON strings hold no raw newlines (they are escaped), so every newline and
+  // the indentation after it belong to the layout and can go.
+  const std::string pretty = json_text(t);
+  std::string line;
+  for (std::size_t i = 0; i < pretty.size(); ++i) {
+    if (pretty[i] != '\n') {
+      line += pretty[i];
+      continue;
+    }
+    while (i + 1 < pretty.size() && pretty[i + 1] == ' ') ++i;
+  }
+  return line + "\n";
+}
+
 } // namespace ts

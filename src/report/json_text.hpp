@@ -9,5 +9,7 @@
 namespace ts {
 
 std::string json_text(const toml::table& t);
+// The same object on one line (JSON Lines), ending in a newline.
+std::string json_line(const toml::table& t);
 
 } // namespace ts

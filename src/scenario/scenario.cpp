@@ -1,9 +1,11 @@
 #include "scenario/scenario.hpp"
 
 #include "core/error.hpp"
+#include "lowering/structure_file.hpp"
 
 #include <toml++/toml.h>
 
+#include <filesystem>
 #include <set>
 
 namespace ts {
@@ -14,6 +16,7 @@ const char* kinds_help =
     "strain, shear, polar, electric-field, moment, magnetic-field, current, magnetic-group, tilts";
 
 std::string at(const std::string& file, const toml::source_region& s) {
+  if (s.begin.line == 0) return file; // a table built in memory (a Python dict) has no lines
   return file + ":" + std::to_string(s.begin.line) + ":" + std::to_string(s.begin.column);
 }
 
@@ -255,6 +258,10 @@ Scenario load_scenario(const std::string& path) {
     fail(ErrorKind::bad_file, std::string(e.description()), at(path, e.source()),
          "a TOML scenario file (schema in docs/scenarios.md)");
   }
+  return scenario_from_table(root, path);
+}
+
+Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   Scenario sc;
   sc.source = path;
   check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation"},
@@ -262,7 +269,7 @@ Scenario load_scenario(const std::string& path) {
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
-  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic"}, path, "[crystal]");
+  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy", "symprec"}, path, "[crystal]");
   sc.group = get_string(*crystal, "group", path, false, "a point-group symbol such as m-3m or 4/mmm1'");
   if (auto nm = crystal->get("nonmagnetic")) {
     auto b = nm->value<bool>();
@@ -273,6 +280,24 @@ Scenario load_scenario(const std::string& path) {
     auto t = st->as_table();
     if (!t) fail(ErrorKind::bad_file, "[crystal.structure] must be a table", at(path, st->source()));
     sc.structure = parse_structure(*t, path + ":[crystal.structure]");
+  }
+  if (auto file = crystal->get("file")) {
+    if (sc.structure) fail(ErrorKind::bad_file, "[crystal] gives both a file and a structure; keep one", at(path, file->source()));
+    StructureFileOptions options;
+    const std::string occupancy = get_string(*crystal, "occupancy", path, false, "\"refuse\" or \"ignore\"");
+    if (!occupancy.empty())
+      options.occupancy = parse_occupancy_policy(occupancy, at(path, crystal->get("occupancy")->source()), ErrorKind::bad_file);
+    if (auto p = crystal->get("symprec")) {
+      auto v = p->value<double>();
+      if (!v || !(*v > 0 && *v < 1))
+        fail(ErrorKind::bad_file, "'symprec' must be a distance in Angstrom between 0 and 1", at(path, p->source()),
+             "symprec = 0.01 (the default for files)");
+      options.symprec = *v;
+    }
+    // A relative path is read from the scenario's folder, so a scenario and its CIF travel together.
+    std::filesystem::path cif = get_string(*crystal, "file", path, true, "a CIF or mCIF path, relative to this file");
+    if (cif.is_relative()) cif = std::filesystem::path(path).parent_path() / cif;
+    sc.structure = read_structure_file(cif.string(), options);
   }
   if (sc.group.empty() && !sc.structure)
     fail(ErrorKind::bad_file, "[crystal] needs a point group or a structure", at(path, crystal->source()),

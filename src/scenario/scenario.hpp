@@ -9,6 +9,8 @@
 #include "geometry/lattice_metric.hpp"
 #include "lowering/structure_symmetry.hpp"
 
+#include <toml++/toml.h>
+
 #include <optional>
 #include <string>
 #include <vector>
@@ -86,6 +88,9 @@ struct Scenario {
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
+// The same from a table already in memory (e.g. built from a Python dict);
+// `path` names it in messages, and relative structure files are read from its folder.
+Scenario scenario_from_table(const toml::table& root, const std::string& path);
 LoweringKind parse_lowering_kind(const std::string& text, const std::string& where);
 const char* lowering_kind_name(LoweringKind k);
 // "strain:[001]", "field:[1-10]", "shear:[100],[010]", "magnetic-group:4'/m'm'm", "tilts:a0a0c-"

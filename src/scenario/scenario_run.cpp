@@ -4,6 +4,7 @@
 #include "lowering/curie.hpp"
 #include "geometry/sample_frame.hpp"
 #include "lowering/glazer_tilts.hpp"
+#include "lowering/structure_file.hpp"
 #include "response/response_catalogue.hpp"
 #include "tensor/param_tensor.hpp"
 
@@ -31,6 +32,7 @@ struct Parent {
   PointGroup group;
   std::string system;
   std::string note;
+  std::optional<StructureSymmetry> symmetry;
 };
 
 Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
@@ -68,6 +70,8 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
   p.note = "structure: space group " + sym.space_group_symbol + " (" + std::to_string(sym.space_group_number) +
            "), point group " + id.type->symbol + (st.magnetic ? " with the given moments" : ", non-magnetic") +
            " (spglib, symprec " + std::to_string(sym.symprec) + ")";
+  for (const auto& n : structure_symmetry_notes(st, sym)) p.note += "; " + n;
+  p.symmetry = sym;
   if (!metric.known()) {
     auto length = [&](int r) {
       double s = 0;
@@ -201,6 +205,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
   LatticeMetric metric = sc.metric;
   Parent parent = parent_group(sc, metric);
   res.parent_note = parent.note;
+  res.structure_symmetry = parent.symmetry;
   const LatticeKind lattice = parent.group.lattice();
   SampleFrame sf = build_sample_frame({sc.cut, sc.z, sc.x, sc.source}, parent.system, lattice, metric);
   const Vec3 normal = sf.normal;

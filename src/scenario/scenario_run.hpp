@@ -90,6 +90,7 @@ struct DomainReport {
 struct ScenarioResult {
   Scenario scenario;
   std::string parent_note;   // e.g. "m-3m taken as non-magnetic: m-3m1'"
+  std::optional<StructureSymmetry> structure_symmetry; // what the search found, when the parent is a structure
   Frame frame;
   SampleFrame sample;
   std::string system;           // crystal system of the parent

@@ -1,0 +1,112 @@
+// tensorsieve_screen_bench: structures per second of `tensorsieve screen`, on
+// 1 and 2 threads, for 1000 invented structures written as mCIF files.
+//
+// The structures are tilted perovskites (the 15 Glazer systems, 40-atom
+// supercells, from build_tilted_perovskite) with random collinear moments on
+// the 8 B sites: a fixed-seed random sign per site and an axis drawn from
+// [100], [001], [110], [111]. They are invented data for timing only. The
+// program prints the rate of the symmetry search alone (reading the file and
+// spglib's magnetic search) beside the rate of the whole screening, so the
+// share of the tensor work can be read off. Figures are printed, never
+// asserted (docs/performance.md).
+#include "bench_clock.hpp"
+
+#include "lowering/glazer_tilts.hpp"
+#include "lowering/structure_file.hpp"
+#include "scenario/screening.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <random>
+#include <sstream>
+#include <thread>
+
+#include <unistd.h>
+
+namespace fs = std::filesystem;
+
+namespace {
+
+std::string invented_mcif(const ts::CrystalStructure& cell, const std::array<double, 3>& axis, std::mt19937& random,
+                          int serial) {
+  std::ostringstream os;
+  os.precision(8);
+  os << "# invented for the screening benchmark\ndata_bench_" << serial << "\n";
+  const char* names[3] = {"a", "b", "c"};
+  for (int i = 0; i < 3; ++i) {
+    for (int j = 0; j < 3; ++j)
+      if (i != j && std::fabs(cell.lattice[i][j]) > 1e-9) {
+        std::fprintf(stderr, "tensorsieve_screen_bench: tilted cell is not orthogonal\n");
+        std::exit(1);
+      }
+    os << "_cell_length_" << names[i] << " " << cell.lattice[i][i] << "\n";
+  }
+  os << "_cell_angle_alpha 90\n_cell_angle_beta 90\n_cell_angle_gamma 90\n";
+  os << "loop_\n_atom_site_label\n_atom_site_type_symbol\n_atom_site_fract_x\n_atom_site_fract_y\n_atom_site_fract_z\n";
+  for (std::size_t k = 0; k < cell.sites.size(); ++k) {
+    const auto& s = cell.sites[k];
+    os << s.species << k + 1 << " " << s.species << " " << s.frac[0] << " " << s.frac[1] << " " << s.frac[2] << "\n";
+  }
+  os << "loop_\n_atom_site_moment.label\n_atom_site_moment.crystalaxis_x\n_atom_site_moment.crystalaxis_y\n"
+        "_atom_site_moment.crystalaxis_z\n";
+  std::bernoulli_distribution up(0.5);
+  for (std::size_t k = 0; k < cell.sites.size(); ++k) {
+    if (cell.sites[k].species != "B") continue;
+    const double sign = up(random) ? 3.0 : -3.0;
+    os << "B" << k + 1 << " " << sign * axis[0] << " " << sign * axis[1] << " " << sign * axis[2] << "\n";
+  }
+  return os.str();
+}
+
+} // namespace
+
+int main() {
+  using namespace ts;
+  const int count = 1000;
+  const fs::path dir = fs::temp_directory_path() / ("tensorsieve-screen-bench-" + std::to_string(::getpid()));
+  fs::create_directories(dir);
+  std::vector<TiltedPerovskite> systems;
+  for (const auto& g : all_glazer_tilt_systems()) systems.push_back(build_tilted_perovskite(parse_glazer_symbol(g)));
+  const std::array<double, 3> axes[] = {{1, 0, 0}, {0, 0, 1}, {1, 1, 0}, {1, 1, 1}};
+  std::mt19937 random(20261201);
+  ScreenRequest request;
+  for (int n = 0; n < count; ++n) {
+    char name[32];
+    std::snprintf(name, sizeof name, "s%04d.mcif", n);
+    const auto& axis = axes[std::uniform_int_distribution<int>(0, 3)(random)];
+    std::ofstream(dir / name) << invented_mcif(systems[static_cast<std::size_t>(n) % systems.size()].cell, axis, random, n);
+    request.files.push_back((dir / name).string());
+  }
+  request.responses = {"anomalous-hall", "linear-magnetoelectric", "second-order-conductivity"};
+
+  std::printf("tensorsieve screening benchmark: %d invented tilted-perovskite mCIF files (40 atoms each), "
+              "responses anomalous-hall, linear-magnetoelectric, second-order-conductivity\n", count);
+  std::printf("cores reported by the system: %u\n", std::thread::hardware_concurrency());
+  const double search = bench::seconds_of([&] {
+    for (const auto& f : request.files) {
+      try {
+        find_structure_symmetry(read_structure_file(f, request.options));
+      } catch (const Error&) {
+        // counted below, from the screening rows
+      }
+    }
+  });
+  std::printf("  symmetry search only (read + spglib), 1 thread: %8.1f structures/s\n", count / search);
+  int failed = 0;
+  for (unsigned threads : {1u, 2u}) {
+    std::vector<ScreenRow> rows;
+    const double t = bench::seconds_of([&] { rows = screen_structures(request, threads); });
+    failed = 0;
+    for (const auto& r : rows) failed += r.error.empty() ? 0 : 1;
+    std::printf("  whole screening, %u thread%s:                  %8.1f structures/s", threads, threads == 1 ? " " : "s",
+                count / t);
+    if (threads == 1) std::printf("  (the search is %.0f%% of it)", 100 * search / t);
+    std::printf("\n");
+  }
+  if (failed) std::printf("  %d of the files failed (see tensorsieve screen on the folder)\n", failed);
+  if (!std::getenv("TENSORSIEVE_BENCH_KEEP")) fs::remove_all(dir);
+  return 0;
+}

@@ -1,0 +1,242 @@
+// The Python module `tensorsieve` (compiled part, imported as
+// tensorsieve._tensorsieve by python/tensorsieve/__init__.py). Like the CLI it
+// is a thin client: every function calls the library and returns the same
+// JSON report the CLI writes with -f json, as Python dicts and lists, so the
+// two can never disagree. Errors raise tensorsieve.Error with the CLI's
+// located message.
+#include "cli/frame_options.hpp"
+#include "core/error.hpp"
+#include "group/group_catalogue.hpp"
+#include "group/identify.hpp"
+#include "lowering/structure_file.hpp"
+#include "report/form_report.hpp"
+#include "report/group_report.hpp"
+#include "report/json_text.hpp"
+#include "report/scenario_report.hpp"
+#include "report/screen_report.hpp"
+#include "response/response_report.hpp"
+#include "scenario/scenario_run.hpp"
+#include "scenario/screening.hpp"
+
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+
+#include <string>
+#include <vector>
+
+namespace py = pybind11;
+using namespace ts;
+
+namespace {
+
+py::object parse_json(const std::string& text) { return py::module_::import("json").attr("loads")(text); }
+
+// Dict -> TOML table, so a scenario given as a dict goes through the same
+// reader (and the same checks and messages) as a scenario file.
+toml::table table_from_dict(const py::dict& d, const std::string& where);
+
+toml::array array_from_list(const py::list& l, const std::string& where);
+
+void insert_value(toml::table& t, const std::string& key, const py::handle& v, const std::string& where) {
+  const std::string field = where + "." + key;
+  if (py::isinstance<py::bool_>(v)) t.insert(key, v.cast<bool>());
+  else if (py::isinstance<py::int_>(v)) t.insert(key, v.cast<std::int64_t>());
+  else if (py::isinstance<py::float_>(v)) t.insert(key, v.cast<double>());
+  else if (py::isinstance<py::str>(v)) t.insert(key, v.cast<std::string>());
+  else if (py::isinstance<py::dict>(v)) t.insert(key, table_from_dict(v.cast<py::dict>(), field));
+  else if (py::isinstance<py::list>(v) || py::isinstance<py::tuple>(v)) t.insert(key, array_from_list(py::list(py::reinterpret_borrow<py::object>(v)), field));
+  else
+    fail(ErrorKind::bad_file, "unsupported value of type " + std::string(py::str(v.get_type().attr("__name__"))),
+         field, "str, int, float, bool, list or dict, as in a TOML scenario file");
+}
+
+toml::array array_from_list(const py::list& l, const std::string& where) {
+  toml::array a;
+  for (std::size_t i = 0; i < l.size(); ++i) {
+    toml::table holder;
+    insert_value(holder, "v", l[i], where + "[" + std::to_string(i) + "]");
+    a.push_back(*holder.get("v"));
+  }
+  return a;
+}
+
+toml::table table_from_dict(const py::dict& d, const std::string& where) {
+  toml::table t;
+  for (const auto& [k, v] : d) {
+    if (!py::isinstance<py::str>(k)) fail(ErrorKind::bad_file, "keys must be strings", where, "a dict like a TOML table");
+    insert_value(t, k.cast<std::string>(), v, where);
+  }
+  return t;
+}
+
+cli::FrameOptions frame_options(const std::string& z, const std::string& x) {
+  cli::FrameOptions o;
+  o.z = z;
+  o.x = x;
+  return o;
+}
+
+py::object form(const std::string& group, const std::string& spec, const std::string& z, const std::string& x) {
+  const NamedGroup& g = GroupCatalogue::builtin().get(group);
+  const TensorSpec parsed = parse_tensor_spec(spec);
+  FrameContext fc;
+  const Frame frame = cli::frame_from_options(frame_options(z, x), g, &fc);
+  return parse_json(write_form(allowed_form(parsed, g.group, frame), GroupContext::of(g), fc, Format::json,
+                               View::automatic));
+}
+
+py::object group(const std::string& symbol, bool subgroups) {
+  const auto& cat = GroupCatalogue::builtin();
+  return parse_json(write_group_description(cat.get(symbol), subgroups, cat, Format::json));
+}
+
+// The operations of a group as exact matrices (entries as strings sympy
+// parses, such as "-1/2" and "sqrt(3)/2"), in the group's Cartesian frame.
+py::list operations(const std::string& symbol) {
+  const NamedGroup& g = GroupCatalogue::builtin().get(symbol);
+  py::list out;
+  for (const auto& op : g.group.operations()) {
+    py::list rows;
+    for (int i = 0; i < 3; ++i) {
+      py::list row;
+      for (int j = 0; j < 3; ++j) row.append(op.R(i, j).str());
+      rows.append(row);
+    }
+    py::dict d;
+    d["symbol"] = op.symbol(g.group.lattice());
+    d["matrix"] = rows;
+    d["primed"] = op.primed;
+    out.append(d);
+  }
+  return out;
+}
+
+py::object groups(bool magnetic) {
+  const auto& cat = GroupCatalogue::builtin();
+  return parse_json(write_group_list(magnetic ? cat.types() : cat.crystallographic_types(), Format::json));
+}
+
+py::object identify_operations(const std::vector<std::string>& symbols, const std::string& lattice_name) {
+  if (lattice_name != "orthogonal" && lattice_name != "hexagonal")
+    fail(ErrorKind::usage, "unknown lattice '" + lattice_name + "'", "lattice", "orthogonal or hexagonal");
+  const LatticeKind lattice = lattice_name == "hexagonal" ? LatticeKind::hexagonal : LatticeKind::orthogonal;
+  std::vector<Operation> gens;
+  for (std::size_t i = 0; i < symbols.size(); ++i)
+    gens.push_back(parse_operation(symbols[i], lattice, "operation " + std::to_string(i + 1)));
+  PointGroup g = PointGroup::generate(gens, lattice, 96, "the generators");
+  require_lattice_group(g, "the generators");
+  return parse_json(write_identification(g, identify(g, GroupCatalogue::builtin()), Format::json));
+}
+
+py::object responses() { return parse_json(write_response_list(ResponseCatalogue::builtin().responses(), Format::json)); }
+
+py::object response(const std::string& id, const std::string& group, const std::string& z, const std::string& x) {
+  const Response& r = ResponseCatalogue::builtin().get(id);
+  const NamedGroup& g = GroupCatalogue::builtin().get(group);
+  FrameContext fc;
+  const Frame frame = cli::frame_from_options(frame_options(z, x), g, &fc);
+  return parse_json(write_response(r, response_forms(r, g.group, frame), GroupContext::of(g), fc, Format::json,
+                                   View::automatic));
+}
+
+py::object scenario(const py::object& source) {
+  Scenario sc;
+  if (py::isinstance<py::dict>(source)) {
+    sc = scenario_from_table(table_from_dict(source.cast<py::dict>(), "scenario"), "scenario dict");
+  } else {
+    sc = load_scenario(py::str(source).cast<std::string>());
+  }
+  return parse_json(write_scenario(run_scenario(sc), Format::json));
+}
+
+StructureFileOptions file_options(const std::string& occupancy, double symprec) {
+  StructureFileOptions o;
+  o.occupancy = parse_occupancy_policy(occupancy, "occupancy", ErrorKind::usage);
+  if (!(symprec > 0 && symprec < 1)) fail(ErrorKind::usage, "symprec out of range", "symprec", "0 < symprec < 1 Angstrom");
+  o.symprec = symprec;
+  return o;
+}
+
+py::list screen(const std::vector<std::string>& paths, const std::vector<std::string>& response_ids,
+                const std::vector<std::string>& cuts, unsigned threads, const std::string& occupancy, double symprec) {
+  ScreenRequest request;
+  request.responses = response_ids;
+  request.cuts = cuts;
+  request.options = file_options(occupancy, symprec);
+  request.files = collect_structure_files(paths);
+  std::vector<ScreenRow> rows;
+  {
+    py::gil_scoped_release free_python; // the pool runs without the interpreter
+    rows = screen_structures(request, threads);
+  }
+  py::list out;
+  const py::object loads = py::module_::import("json").attr("loads");
+  std::string all = write_screen(request, rows, ScreenFormat::jsonl);
+  std::size_t start = 0;
+  for (std::size_t end = all.find('\n'); end != std::string::npos; start = end + 1, end = all.find('\n', start))
+    out.append(loads(all.substr(start, end - start)));
+  return out;
+}
+
+py::dict structure(const std::string& path, const std::string& occupancy, double symprec) {
+  Scenario sc;
+  sc.source = path;
+  sc.structure = read_structure_file(path, file_options(occupancy, symprec));
+  const ScenarioResult res = run_scenario(sc);
+  const StructureSymmetry& sym = *res.structure_symmetry;
+  py::dict d;
+  d["file"] = path;
+  d["atoms"] = sc.structure->sites.size();
+  d["magnetic"] = sc.structure->magnetic;
+  d["point_group"] = res.chain.front().id.type->symbol;
+  d["setting"] = res.chain.front().id.same_setting ? res.chain.front().id.same_setting->symbol : "";
+  d["operations"] = [&] {
+    py::list ops;
+    for (const auto& op : res.chain.front().group.operations()) ops.append(op.symbol(res.chain.front().group.lattice()));
+    return ops;
+  }();
+  d["space_group"] = sym.space_group_symbol;
+  d["space_group_number"] = sym.space_group_number;
+  d["bns_number"] = sym.bns_number;
+  d["uni_number"] = sym.magnetic_uni_number;
+  d["magnetic_type"] = sym.magnetic_type;
+  d["notes"] = structure_symmetry_notes(*sc.structure, sym);
+  return d;
+}
+
+} // namespace
+
+PYBIND11_MODULE(_tensorsieve, m) {
+  m.doc() = "tensorsieve: symmetry-allowed responses of crystals, films and interfaces (exact, Neumann's principle)";
+  static py::exception<Error> error_type(m, "Error");
+  py::register_exception_translator([](std::exception_ptr p) {
+    try {
+      if (p) std::rethrow_exception(p);
+    } catch (const Error& e) {
+      py::object err = py::reinterpret_borrow<py::object>(error_type)(e.what());
+      err.attr("problem") = e.problem();
+      err.attr("where") = e.location();
+      err.attr("valid") = e.valid();
+      err.attr("exit_code") = e.exit_code();
+      PyErr_SetObject(error_type.ptr(), err.ptr());
+    }
+  });
+  m.def("form", &form, py::arg("group"), py::arg("spec"), py::arg("z") = "", py::arg("x") = "",
+        "allowed form of a tensor spec in a point group (the JSON of `tensorsieve form GROUP SPEC -f json`)");
+  m.def("group", &group, py::arg("symbol"), py::arg("subgroups") = false, "one point group, as `tensorsieve group`");
+  m.def("operations", &operations, py::arg("symbol"),
+        "operations of a point group with exact Cartesian matrices (entries as sympy-parsable strings)");
+  m.def("groups", &groups, py::arg("magnetic") = false, "the 32 classes, or the 122 magnetic types");
+  m.def("identify", &identify_operations, py::arg("operations"), py::arg("lattice") = "orthogonal",
+        "name the point group generated by operation symbols such as \"4+ [001]\", \"m' [100]\"");
+  m.def("responses", &responses, "the response catalogue");
+  m.def("response", &response, py::arg("id"), py::arg("group"), py::arg("z") = "", py::arg("x") = "",
+        "one response in one point group, as `tensorsieve response ID GROUP`");
+  m.def("scenario", &scenario, py::arg("source"),
+        "run a scenario given as a dict (the TOML schema of docs/scenarios.md) or a TOML file path");
+  m.def("structure", &structure, py::arg("path"), py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
+        "read a CIF or mCIF file: point group, space group, BNS number, type and notes");
+  m.def("screen", &screen, py::arg("paths"), py::arg("responses"), py::arg("cuts") = std::vector<std::string>{},
+        py::arg("threads") = 0u, py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
+        "screen structure files: one dict per file, as `tensorsieve screen -f jsonl`");
+}

@@ -1,0 +1,157 @@
+"""The Python module against the command line and against sympy.
+
+Run by ctest (python_module_test) with PYTHONPATH at the built package,
+TENSORSIEVE_BINARY at the built executable and TENSORSIEVE_SOURCE_DIR at the
+source tree.
+"""
+
+import itertools
+import json
+import os
+import subprocess
+
+import pytest
+import sympy
+
+import tensorsieve as ts
+
+BINARY = os.environ["TENSORSIEVE_BINARY"]
+DATA = os.path.join(os.environ["TENSORSIEVE_SOURCE_DIR"], "tests", "data")
+
+
+def cli_json(*args):
+    out = subprocess.run([BINARY, *args, "-f", "json"], check=True, stdout=subprocess.PIPE, text=True).stdout
+    return json.loads(out)
+
+
+FORM_CASES = [
+    ("4mm", "V[V2]", "", ""),
+    ("-3'm'", "aeV2", "", ""),
+    ("6mm1'", "d_ijk: polar, sym(jk)", "", ""),
+    ("m-3m", "[[V2]2]", "[110]", "[001]"),
+    ("4/mm'm'", "sigma_ab: onsager(a,b)", "", ""),
+    ("-43m", "V3", "", ""),
+]
+
+
+@pytest.mark.parametrize("group,spec,z,x", FORM_CASES)
+def test_form_is_the_cli_json(group, spec, z, x):
+    frame = ["--z", z, "--x", x] if z else []
+    assert ts.form(group, spec, z=z, x=x) == cli_json("form", group, spec, *frame)
+
+
+def test_group_identify_and_responses_are_the_cli_json():
+    assert ts.group("m'm2'") == cli_json("group", "m'm2'")
+    assert ts.groups(magnetic=True) == cli_json("groups", "--magnetic")
+    assert ts.identify(["4+ [001]", "m' [100]"]) == cli_json("identify", "4+ [001]", "m' [100]")
+    assert ts.responses() == cli_json("responses")
+    assert ts.response("anomalous-hall", "4m'm'") == cli_json("response", "anomalous-hall", "4m'm'")
+
+
+def full_tensor(report):
+    """{index tuple: sympy expression} for all 3^n components of a form report."""
+    rank = report["tensor"]["rank"]
+    values = {c["index"]: sympy.sympify(c["value"]) for c in report["components"]}
+    axis = {"x": 0, "y": 1, "z": 2}
+    tensor = {idx: sympy.Integer(0) for idx in itertools.product(range(3), repeat=rank)}
+    for index, value in values.items():
+        tensor[tuple(axis[a] for a in index)] = value
+    return tensor
+
+
+# Neumann's principle (common practice): every operation R of the group leaves
+# the tensor unchanged, T'_{i...} = s R_ia ... T_a... with s = det R for an
+# axial tensor and a further -1 for a time-odd one under a primed operation.
+SYMPY_CASES = [("-3'm'", "aeV2"), ("6mm", "V2"), ("3m", "V3"), ("4'/m", "aeV"), ("-6m2", "eV3"), ("m'm2'", "aV2")]
+
+
+@pytest.mark.parametrize("group,spec", SYMPY_CASES)
+def test_form_is_invariant_under_every_operation(group, spec):
+    report = ts.form(group, spec)
+    tensor = full_tensor(report)
+    rank = report["tensor"]["rank"]
+    axial, odd = report["tensor"]["axial"], report["tensor"]["time_odd"]
+    assert any(v != 0 for v in tensor.values()) or report["independent"] == 0
+    for op in ts.operations(group):
+        R = sympy.Matrix([[sympy.sympify(e) for e in row] for row in op["matrix"]])
+        sign = (R.det() if axial else 1) * (-1 if (odd and op["primed"]) else 1)
+        for idx in tensor:
+            image = 0
+            for src in itertools.product(range(3), repeat=rank):
+                factor = 1
+                for i, a in zip(idx, src):
+                    factor *= R[i, a]
+                if factor != 0:
+                    image += factor * tensor[src]
+            assert sympy.simplify(sign * image - tensor[idx]) == 0, (op["symbol"], idx)
+
+
+def test_components_as_text_and_as_exact_values():
+    report = ts.form("6mm", "d_ijk: polar, sym(jk)")
+    text = ts.components(report)
+    exact = ts.exact_components(report)
+    assert set(text) == set(exact)
+    for name, value in text.items():
+        rebuilt = sum(sympy.Rational(f.numerator, f.denominator) * sympy.sqrt(r) * sympy.Symbol(p)
+                      for p, terms in exact[name].items() for f, r in terms)
+        assert sympy.simplify(sympy.sympify(value) - rebuilt) == 0
+    # a surd in a rotated frame: hexagonal elastic-type tensor with x along [1-10]
+    rotated = ts.form("3m", "V2", z="[001]", x="[1-10]")
+    assert rotated == cli_json("form", "3m", "V2", "--z", "[001]", "--x", "[1-10]")
+
+
+def test_errors_raise_our_class_with_the_cli_message():
+    with pytest.raises(ts.Error) as caught:
+        ts.form("4mn", "V")
+    cli = subprocess.run([BINARY, "form", "4mn", "V"], stderr=subprocess.PIPE, text=True)
+    assert cli.stderr == "tensorsieve: error: " + str(caught.value) + "\n"
+    assert caught.value.exit_code == cli.returncode == 3
+    assert "closest" in caught.value.valid
+    with pytest.raises(ts.Error) as broken:
+        ts.structure(os.path.join(DATA, "malformed", "open-operations.mcif"))
+    assert broken.value.where.endswith("open-operations.mcif:10 (data_open_operations)")
+    assert broken.value.exit_code == 5
+
+
+def test_scenario_from_file_and_from_dict(tmp_path):
+    text = ('title = "strained film"\nresponses = ["anomalous-hall"]\n'
+            '[crystal]\ngroup = "m-3m"\n[sample]\ncut = "(001)"\n'
+            '[[lowering]]\nkind = "moment"\nalong = "[001]"\n')
+    path = tmp_path / "film.toml"
+    path.write_text(text)
+    from_file = ts.scenario(str(path))
+    assert from_file == cli_json("run", str(path))
+    from_dict = ts.scenario({"title": "strained film", "responses": ["anomalous-hall"],
+                             "crystal": {"group": "m-3m"}, "sample": {"cut": "(001)"},
+                             "lowering": [{"kind": "moment", "along": "[001]"}]})
+    from_file.pop("source")
+    from_dict.pop("source")
+    assert from_dict == from_file
+    with pytest.raises(ts.Error) as caught:
+        ts.scenario({"crystal": {"group": "m-3m"}, "responses": ["anomalous-hall"], "sample": {"cutt": "(001)"}})
+    assert "unknown key 'cutt' in [sample]" in str(caught.value)
+
+
+def test_structure_files_and_screening():
+    s = ts.structure(os.path.join(DATA, "cr2o3-afm.mcif"))
+    # Cr2O3: -3'm' (Dzyaloshinskii 1960); BNS 167.106 from memory, spglib agrees.
+    assert (s["point_group"], s["bns_number"], s["magnetic_type"]) == ("-3'm'", "167.106", 3)
+    m = ts.structure(os.path.join(DATA, "mno-afm.mcif"))
+    assert m["magnetic_type"] == 4 and m["point_group"] == "2/m1'"
+    assert any("type IV" in n for n in m["notes"])
+    rows = ts.screen([DATA], ["anomalous-hall", "linear-magnetoelectric"], cuts=["(001)"], threads=2)
+    cli = subprocess.run([BINARY, "screen", DATA, "--response", "anomalous-hall", "--response",
+                          "linear-magnetoelectric", "--cut", "(001)", "-f", "jsonl"],
+                         check=True, stdout=subprocess.PIPE, text=True).stdout
+    assert rows == [json.loads(line) for line in cli.splitlines()]
+
+
+def test_the_documented_example_runs(capsys):
+    import runpy
+    runpy.run_path(os.path.join(os.environ["TENSORSIEVE_SOURCE_DIR"], "docs", "python", "screen_and_plot.py"))
+    out = capsys.readouterr().out
+    # the ferromagnet along [001] allows the anomalous Hall effect, the
+    # two-sublattice antiferromagnet (type IV, grey) does not: common practice
+    assert "fm-001.mcif  4/mm'm'" in out and "AHE 1" in out
+    assert "afm-001.mcif 4/mmm1'" in out
+    assert "P(2w) = [d_xxz*sin(2*phi), 0, d_zxx*cos(phi)**2 + d_zzz*sin(phi)**2]" in out
