@@ -115,7 +115,7 @@ void set_bar_field(BarMeasurement& m, const std::string& raw, const SampleFrame&
                       : text == "normal"         ? "along the normal n"
                       : text == "along-current"  ? "in plane along the current (φ_B = φ)"
                       : text == "across-current" ? "in plane across the current (φ_B = φ + 90°)"
-                                                 : "no field";
+                                                 : "none";
       return;
     }
   m.field = FieldGeometry::fixed;

@@ -17,10 +17,14 @@ TextStyle style_of(Format f) { return f == Format::latex ? TextStyle::latex : Te
 // Prose in LaTeX text mode: _ ^ & ... escaped; the Unicode symbols become commands in finish().
 std::string prose(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
 
-std::string math(const std::string& s, Format f) { return f == Format::latex ? "$" + s + "$" : s; }
+std::string math(const std::string& s, Format f) {
+  return f == Format::latex ? "$" + s + "$" : f == Format::markdown ? "`" + s + "`" : s;
+}
 
 std::string line(Format f) { return f == Format::latex ? "\\\\\n" : "\n"; }
 std::string bullet(Format f) { return f == Format::markdown ? "- " : (f == Format::latex ? "" : "  "); }
+// A line under the previous bullet: nested in Markdown, indented in text.
+std::string sub_bullet(Format f) { return f == Format::markdown ? "  - " : (f == Format::latex ? "\\quad " : "    "); }
 
 std::string heading(const std::string& s, Format f, int level) {
   if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
@@ -33,7 +37,7 @@ std::string function_text(const FourierTerm& t, Format f) {
 }
 
 std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, Format f) {
-  if (terms.empty()) return f == Format::latex ? "$0$" : "0";
+  if (terms.empty()) return f == Format::latex ? "$0$" : f == Format::markdown ? "`0`" : "0";
   std::vector<std::string> parts;
   for (const auto& t : terms) {
     std::string c = combination_text(form, t.coefficient, style_of(f));
@@ -48,6 +52,7 @@ std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm
     else if (p[0] == '-') s += " - " + p.substr(1);
     else s += " + " + p;
   }
+  if (f == Format::markdown) return "`" + s + "`";
   return f == Format::latex ? "$" + s + "$" : s;
 }
 
@@ -148,7 +153,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
      << line(f) << "\n";
   for (const auto& b : r.bars) {
     const BarMeasurement& m = b.measurement;
-    os << heading(m.name + ": current " + m.current_label + "; field " +
+    os << heading(m.name + ": current " + m.current_label + "; field: " +
                       (m.field_label.empty() ? field_geometry_name(m.field) : m.field_label),
                   f, 3);
     os << bullet(f) << prose("drive: " + waveform_text(m, f), f) << line(f);
@@ -197,12 +202,12 @@ std::string write_bars(const ScenarioResult& r, Format f) {
           std::string n = std::to_string(ps.current_order);
           std::string pre = std::string(ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(ps.current_order + 1) + " " : "") +
                             (p->probe == Probe::longitudinal ? "L" : "w") + "/(w t)" + (ps.current_order == 1 ? "" : "^" + n);
-          os << bullet(f) << "  " << prose(rn, f) << " = "
+          os << sub_bullet(f) << prose(rn, f) << " = "
              << (f == Format::latex ? "$" + ex_latex(e) + "$" : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
              << line(f);
         }
         std::string z = zero_text(p->zero_azimuths);
-        if (p->reads() && !z.empty()) os << bullet(f) << "  reads zero for every parameter value at " << z << line(f);
+        if (p->reads() && !z.empty()) os << sub_bullet(f) << "reads zero for every parameter value at " << z << line(f);
         if (!p->largest_azimuths.empty()) {
           std::vector<std::string> at;
           for (double d : p->largest_azimuths) {
@@ -210,7 +215,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
             std::snprintf(buf, sizeof buf, "%.4g°", d);
             at.push_back(buf);
           }
-          os << bullet(f) << "  largest |signal| at φ = " << join(at, ", ") << line(f);
+          os << sub_bullet(f) << "largest |signal| at φ = " << join(at, ", ") << line(f);
         }
       }
       if (ps.hall_split && ps.transverse.reads()) {
