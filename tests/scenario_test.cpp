@@ -4,6 +4,8 @@
 #include "group/identify.hpp"
 #include "scenario/scenario_run.hpp"
 
+#include "support/cli_run.hpp"
+
 #include <catch2/catch.hpp>
 
 #include <cstdlib>
@@ -35,8 +37,14 @@ LoweringStep step(LoweringKind k, const std::string& along, const std::string& v
   return s;
 }
 
+// One scratch directory per test process: parallel ctest runs never share a file.
+const ts::test::TempDir& scratch() {
+  static const ts::test::TempDir dir;
+  return dir;
+}
+
 fs::path write_temp(const std::string& name, const std::string& text) {
-  fs::path p = fs::temp_directory_path() / name;
+  fs::path p = scratch() / name;
   std::ofstream(p) << text;
   return p;
 }
@@ -46,7 +54,7 @@ struct Run {
   std::string err;
 };
 Run cli(const std::string& args) {
-  fs::path err = fs::temp_directory_path() / "tensorsieve-scenario-err.txt";
+  fs::path err = scratch() / "cli-err.txt";
   std::string cmd = "'" TENSORSIEVE_BINARY "' " + args + " > /dev/null 2> '" + err.string() + "'";
   int rc = std::system(cmd.c_str());
   std::ifstream in(err);

@@ -33,7 +33,7 @@ void setup_sample(CLI::App& app) {
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
-  cmd->add_option("group", o->sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')")->required();
+  cmd->add_option("group", o->sc.group, kGroupSymbolHelp)->required();
   cmd->add_option("--cut", o->sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
   cmd->add_option("--x", o->sc.x, "in-plane direction for sample x");
   cmd->add_option("--z", o->sc.z, "sample z for a bulk sample (no cut)");
@@ -41,13 +41,18 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--lower", o->lowerings,
                   "lowering step KIND:VALUE, in order: strain:[001], shear:[100],[010], polar:[110], "
                   "electric-field:[001], moment:[001], magnetic-field:[1-10], current:[100], "
-                  "magnetic-group:4'/m'm'm, tilts:a0a0c-");
-  cmd->add_option("--response", o->sc.responses, "response id from `tensorsieve responses` (repeatable)");
-  cmd->add_option("--tensor", o->sc.tensors, "extra tensor spec (repeatable)");
+                  "subgroup:mm2 (structural), magnetic-group:4'/m'm'm (magnetic order), tilts:a0a0c-")
+      ->allow_extra_args(false);
+  // One value per occurrence, taken as written: CLI11 would otherwise read "[V2]" as a
+  // bracketed list and strip the brackets of a Jahn symbol.
+  cmd->add_option("--response", o->sc.responses, "response id from `tensorsieve responses` (repeatable)")
+      ->allow_extra_args(false);
+  cmd->add_option("--tensor", o->sc.tensors, "extra tensor spec, e.g. \"[[V2]2]\" (repeatable)")
+      ->allow_extra_args(false);
   cmd->add_option("--a", o->a, "lattice parameter a");
   cmd->add_option("--b", o->b, "lattice parameter b");
   cmd->add_option("--c", o->c, "lattice parameter c");
-  cmd->add_flag("--colourless", o->colourless, "take a group without primes literally, not as G1'");
+  add_colourless_flag(*cmd, o->colourless);
   cmd->add_flag("--domains", o->sc.domains, "orientation domains of the lowering and their average");
   add_output_options(*cmd, o->out);
   cmd->callback([o] {

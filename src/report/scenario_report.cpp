@@ -5,6 +5,7 @@
 #include "report/form_report.hpp"
 #include "report/json_text.hpp"
 
+#include <algorithm>
 #include <sstream>
 
 namespace ts {
@@ -205,13 +206,27 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       os << heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
                         group_name(r.chain[d.from_step]) + " (spontaneous steps only; applied fields form no domains)",
                     f, 3);
+      // A rank-6 tensor over 96 variants would print a gigabyte: a person reads the
+      // first variants, the rest (and every component) is in --format json.
+      constexpr std::size_t kShownVariants = 8, kShownCharacters = 2000;
+      auto capped = [&](std::string text) {
+        if (text.size() <= kShownCharacters) return text;
+        std::size_t cut = kShownCharacters;
+        while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80) --cut;
+        return text.substr(0, cut) + " ... (" + std::to_string(text.size() - cut) +
+               " more characters; --format json lists every component)";
+      };
       std::vector<std::vector<std::string>> vrows;
-      for (std::size_t v = 0; v < d.analysis.variants.size(); ++v)
+      const std::size_t shown = std::min(d.analysis.variants.size(), kShownVariants);
+      for (std::size_t v = 0; v < shown; ++v)
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                         tensor_components_text(d.analysis.variants[v].tensor, d.form, f)});
+                         capped(tensor_components_text(d.analysis.variants[v].tensor, d.form, f))});
       os << grid({"variant", "g_i", "components (sample frame)"}, vrows, f);
+      if (shown < d.analysis.variants.size())
+        os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
+           << " are not printed here; --format json lists them all\n";
       os << "\n" << (f == Format::markdown ? "**" : "") << "average over equal populations:" << (f == Format::markdown ? "** " : " ")
-         << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
+         << capped(tensor_components_text(d.analysis.average, d.form, f)) << "\n\n";
     }
   }
   return finish(os.str(), f);

@@ -35,14 +35,15 @@ struct Parent {
 Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
   const auto& cat = GroupCatalogue::builtin();
   Parent p;
-  if (!sc.group.empty()) {
-    const NamedGroup& g = cat.get(sc.group);
+  if (!sc.structure) {
+    const NamedGroup& literal = cat.get(sc.group);
+    const NamedGroup& g =
+        cat.get(sc.group, sc.assume_nonmagnetic ? PlainSymbol::nonmagnetic : PlainSymbol::colourless);
     p.group = g.group;
     p.system = g.crystal->system;
-    if (sc.assume_nonmagnetic && g.kind == MagneticKind::colourless) {
-      p.group = g.group.with_time_reversal();
-      p.note = g.symbol + " taken as non-magnetic: " + g.symbol + "1' (set nonmagnetic = false for a colourless magnetic group)";
-    }
+    if (&g != &literal)
+      p.note = literal.symbol + " taken as non-magnetic: " + g.symbol +
+               " (--colourless or nonmagnetic = false for the colourless magnetic group)";
     return p;
   }
   const CrystalStructure& st = *sc.structure;
@@ -71,7 +72,7 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
     auto length = [&](int r) {
       double s = 0;
       for (double v : st.lattice[r]) s += v * v;
-      return exact_decimal(std::sqrt(s));
+      return exact_decimal(std::sqrt(s), st.where, ErrorKind::bad_file);
     };
     metric.a = length(0);
     metric.b = length(1);
@@ -184,6 +185,7 @@ std::string step_label(const LoweringStep& s) {
   case LoweringKind::magnetic_field: base = "magnetic field ∥ " + s.along; break;
   case LoweringKind::current: base = "current ∥ " + s.along; break;
   case LoweringKind::magnetic_group: base = "magnetic order " + s.value; break;
+  case LoweringKind::subgroup: base = "structural subgroup " + s.value; break;
   case LoweringKind::tilts: base = "octahedral tilts " + s.value; break;
   }
   return s.label.empty() ? base : s.label + " (" + base + ")";
@@ -217,6 +219,19 @@ PointGroup lower(const PointGroup& g, const LoweringStep& s, const std::string& 
            "a magnetic point group of the same crystal family, written in the crystal's axes");
     *quantity = "intersection with the magnetic point group " + order.symbol + " (crystal axes)";
     return g.intersection(order.group);
+  }
+  case LoweringKind::subgroup: {
+    // A twin, a distortion or a superstructure: operations of space, no time reversal
+    // of its own. In a non-magnetic crystal each kept operation keeps its partner with 1'.
+    const NamedGroup& h = GroupCatalogue::builtin().get(s.value);
+    if (h.kind != MagneticKind::colourless)
+      fail(s.bad_value, "structural subgroup " + s.value + " has primed operations", s.where,
+           "a point group symbol without primes or 1' (mm2, 4mm, ...); magnetic order is magnetic-group:" + s.value);
+    if (h.group.lattice() != g.lattice())
+      fail(ErrorKind::bad_geometry, "subgroup " + s.value + " is given in other axes than the crystal", s.where,
+           "a point group of the same crystal family, written in the crystal's axes");
+    *quantity = "intersection with the structural point group " + h.symbol + " (crystal axes; time reversal as before)";
+    return g.intersection(h.group.with_time_reversal());
   }
   case LoweringKind::tilts:
     *quantity = "intersection with the point group of the tilted perovskite (spglib)";
