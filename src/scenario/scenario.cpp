@@ -9,6 +9,8 @@
 
 #include <cmath>
 #include <filesystem>
+#include <fstream>
+#include <sstream>
 #include <set>
 
 namespace ts {
@@ -151,9 +153,17 @@ Scenario load_scenario(const std::string& path) {
     fail(ErrorKind::bad_file, std::filesystem::is_directory(status) ? "is a directory, not a scenario file"
                                                                      : "is not a regular file",
          path, "the path of a scenario TOML file (docs/scenarios.md)");
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  if (!in) fail(ErrorKind::bad_file, "cannot read the file", path, "a readable scenario TOML file");
+  return parse_scenario(text.str(), path);
+}
+
+Scenario parse_scenario(const std::string& text, const std::string& path) {
   toml::table root;
   try {
-    root = toml::parse_file(path);
+    root = toml::parse(text, path);
   } catch (const toml::parse_error& e) {
     fail(ErrorKind::bad_file, std::string(e.description()), at(path, e.source()),
          "a TOML scenario file (schema in docs/scenarios.md)");

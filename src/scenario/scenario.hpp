@@ -47,6 +47,8 @@ struct Scenario {
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
+// The same from the text of a file; `path` names it in messages.
+Scenario parse_scenario(const std::string& text, const std::string& path);
 LoweringKind parse_lowering_kind(const std::string& text, const std::string& where, ErrorKind bad_value);
 const char* lowering_kind_name(LoweringKind k);
 // "strain:[001]", "field:[1-10]", "shear:[100],[010]", "magnetic-group:4'/m'm'm", "tilts:a0a0c-"
