@@ -65,7 +65,8 @@ std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form
   for (int r = 0; r < form.symmetry->size(); ++r) {
     int c = form.symmetry->rep_code(r);
     if (t.is_zero(c)) continue;
-    parts.push_back(symbol_text(form.component_name(c), style) + " = " + combination_text(form, t.components[c], style));
+    std::string relation = symbol_text(form.component_name(c), style) + " = " + combination_text(form, t.components[c], style);
+    parts.push_back(style == TextStyle::latex ? "$" + relation + "$" : relation); // math mode inside a table cell
   }
   return parts.empty() ? "all components vanish" : join(parts, "; ");
 }
@@ -211,7 +212,9 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       constexpr std::size_t kShownVariants = 8, kShownCharacters = 2000;
       auto capped = [&](std::string text) {
         if (text.size() <= kShownCharacters) return text;
-        std::size_t cut = kShownCharacters;
+        // cut between two relations, so a LaTeX $...$ pair stays whole
+        std::size_t cut = text.rfind("; ", kShownCharacters);
+        if (cut == std::string::npos || cut == 0) cut = kShownCharacters;
         while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80) --cut;
         return text.substr(0, cut) + " ... (" + std::to_string(text.size() - cut) +
                " more characters; --format json lists every component)";
