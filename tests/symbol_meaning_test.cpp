@@ -141,3 +141,19 @@ TEST_CASE("standard names of the two-orientation magnetic types", "[symbols]") {
   REQUIRE(other2.exit_code == 0);
   CHECK(has(other2.out, "type             4'/mmm'"));
 }
+
+TEST_CASE("settings written with 1 positions are printed as type and elements", "[symbols]") {
+  // The (101) face of a tetragonal crystal keeps one mirror, the one containing the
+  // normal and [-101]: its normal is [010] (common practice).
+  const std::vector<std::string> args = {"sample", "4/mmm", "--cut", "(101)", "--a", "3.91", "--c", "4.1",
+                                         "--tensor", "V"};
+  const auto text = run_cli(args);
+  REQUIRE(text.exit_code == 0);
+  CHECK(has(text.out, "m1' (mirror ⊥ [010])"));
+  CHECK(!has(text.out, "m111'"));
+  auto json_args = args;
+  json_args.insert(json_args.end(), {"-f", "json"});
+  const auto json = run_cli(json_args);
+  REQUIRE(json.exit_code == 0);
+  CHECK(has(json.out, "\"sample_frame_symbol\" : \"m111'\"")); // the full setting stays in JSON
+}

@@ -158,4 +158,29 @@ Identification identify(const PointGroup& group, const GroupCatalogue& catalogue
   fail(ErrorKind::internal, "found the type " + id.type->symbol + " but no rotation to its standard setting");
 }
 
+std::string elements_in_words(const PointGroup& g, LatticeKind lattice, std::size_t max_items) {
+  const bool grey = g.is_grey();
+  std::vector<std::string> words;
+  for (const auto& op : g.operations()) {
+    if (grey && op.primed) continue;
+    const OperationKind k = op.kind();
+    if (k.order == 1 && k.proper) continue;   // 1 (and 1', implied by a grey type)
+    if (k.sense < 0) continue;                // one entry per axis: n+ stands for n-
+    std::string sym = op.symbol(lattice);     // "m' [110]", "4+ [001]", "-1"
+    std::size_t space = sym.find(' ');
+    std::string head = sym.substr(0, space), dir = space == std::string::npos ? "" : sym.substr(space + 1);
+    const std::string prime = op.primed ? "'" : "";
+    std::string word;
+    if (!k.proper && k.order == 1) word = "inversion centre" + prime;
+    else if (!k.proper && k.order == 2) word = "mirror" + prime + " ⊥ " + dir;
+    else word = std::string(k.proper ? "" : "-") + std::to_string(k.order) + prime + " ∥ " + dir;
+    if (std::find(words.begin(), words.end(), word) == words.end()) words.push_back(word);
+  }
+  if (words.empty()) return "no element but the identity";
+  std::string out;
+  for (std::size_t i = 0; i < words.size() && i < max_items; ++i) out += (i ? ", " : "") + words[i];
+  if (words.size() > max_items) out += ", ... (" + std::to_string(words.size()) + " elements in all)";
+  return out;
+}
+
 } // namespace ts

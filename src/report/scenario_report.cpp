@@ -20,9 +20,9 @@ std::string heading(const std::string& s, Format f, int level = 2) {
   return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
 }
 
-std::string group_name(const ChainStep& st) {
-  return st.sample_symbol.empty() ? st.id.type->symbol : st.sample_symbol;
-}
+// What a person reads: the type with its elements in words for a non-standard setting
+// (JSON keeps the setting symbol itself, sample_frame_symbol).
+std::string group_name(const ChainStep& st) { return st.readable_symbol; }
 
 std::string standard_axes(const ChainStep& st, LatticeKind lattice) {
   std::string out;
@@ -44,7 +44,7 @@ GroupContext context_of(const ChainStep& st, LatticeKind lattice) {
   c.kind = magnetic_kind_name(st.id.type->kind);
   c.order = st.group.order();
   c.setting = st.sample_symbol.empty() ? "standard setting at " + standard_axes(st, lattice) + " (crystal axes)"
-                                       : st.sample_symbol + " in the sample frame";
+                                       : group_name(st) + " in the sample frame";
   for (const auto& op : st.group.operations()) c.operations.push_back(op.symbol(lattice));
   return c;
 }

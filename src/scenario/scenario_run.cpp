@@ -151,6 +151,8 @@ Frame sample_frame(const Scenario& sc, const std::string& system, LatticeKind la
   return f;
 }
 
+std::string group_label(const ChainStep& st) { return st.sample_symbol.empty() ? st.id.type->symbol : st.sample_symbol; }
+
 std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
   if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
   for (const auto& cand : GroupCatalogue::builtin().groups())
@@ -293,6 +295,13 @@ ScenarioResult run_scenario(const Scenario& sc) {
     st.quantity = quantity;
     st.id = identify(g, cat);
     st.sample_symbol = sample_symbol(g, st.id, res.frame);
+    // A setting written with 1 positions (m11, m111', 112/m) says little to a reader:
+    // print its type and its elements instead. Named variants such as mm'2' stay.
+    std::string plain = st.sample_symbol;
+    if (g.is_grey() && plain.size() > 2) plain.resize(plain.size() - 2);
+    const bool cryptic = !st.sample_symbol.empty() && st.sample_symbol != st.id.type->symbol &&
+                         plain.find('1') != std::string::npos;
+    st.readable_symbol = cryptic ? st.id.type->symbol + " (" + elements_in_words(g, lattice) + ")" : group_label(st);
     if (!res.chain.empty())
       for (const auto& op : res.chain.back().group.operations())
         if (!g.contains(op)) st.lost.push_back(op.symbol(lattice));
