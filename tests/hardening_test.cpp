@@ -134,3 +134,32 @@ TEST_CASE("hardening: output is byte-identical across runs", "[hardening]") {
   REQUIRE(a.exit_code == 0);
   CHECK(a.out == b.out);
 }
+
+TEST_CASE("--response all and families, with the summary first", "[reports]") {
+  // Common practice: a polar (001) surface of a centrosymmetric cubic crystal switches
+  // on the even-order nonlinear transport that inversion forbade in the bulk.
+  const auto family = run_cli({"sample", "m-3m", "--cut", "(001)", "--response", "transport"});
+  REQUIRE(family.exit_code == 0);
+  const std::size_t summary = family.out.find("summary: what the last step (cut (001), surface or interface) switched on");
+  REQUIRE(summary != std::string::npos);
+  CHECK(summary < family.out.find("allowed form of"));
+  CHECK(family.out.find("switched on: second-order-conductivity") != std::string::npos);
+  CHECK(family.out.find("electric-dipole-shg") == std::string::npos); // optics is another family
+  const auto all = run_cli({"sample", "m-3m", "--cut", "(001)", "--response", "all", "-f", "json"});
+  REQUIRE(all.exit_code == 0);
+  const auto list = run_cli({"responses", "-f", "json"});
+  std::size_t ids = 0, seen = 0;
+  for (std::size_t p = list.out.find("\"id\" : \""); p != std::string::npos; p = list.out.find("\"id\" : \"", p + 1)) {
+    ++ids;
+    const std::size_t s = p + 8;
+    const std::string id = list.out.substr(s, list.out.find('"', s) - s);
+    if (all.out.find("\"response\" : \"" + id + "\"") != std::string::npos) ++seen;
+  }
+  CHECK(ids > 30);
+  CHECK(seen == ids);
+  // a family given twice, or beside one of its members, asks for each response once
+  const auto twice = run_cli({"sample", "m-3m", "--response", "optics", "--response", "electric-dipole-shg",
+                              "--response", "optics", "-f", "json"});
+  const auto once = run_cli({"sample", "m-3m", "--response", "optics", "-f", "json"});
+  CHECK(twice.out == once.out);
+}

@@ -45,7 +45,7 @@ void setup_sample(CLI::App& app) {
       ->allow_extra_args(false);
   // One value per occurrence, taken as written: CLI11 would otherwise read "[V2]" as a
   // bracketed list and strip the brackets of a Jahn symbol.
-  cmd->add_option("--response", o->sc.responses, "response id from `tensorsieve responses` (repeatable)")
+  cmd->add_option("--response", o->sc.responses, "response id from `tensorsieve responses`, or all, transport, optics, equilibrium (repeatable)")
       ->allow_extra_args(false);
   cmd->add_option("--tensor", o->sc.tensors, "extra tensor spec, e.g. \"[[V2]2]\" (repeatable)")
       ->allow_extra_args(false);

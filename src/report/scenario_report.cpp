@@ -172,6 +172,27 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   }
   os << "\n";
 
+  // Many responses at once (--response all, a family): the verdicts first, one line each.
+  if (r.parts.size() > 3 && r.chain.size() > 1) {
+    const std::size_t last = r.chain.size() - 1;
+    os << heading("summary: what the last step (" + r.chain[last].label + ") switched on", f);
+    std::vector<std::string> on, allowed, forbidden;
+    for (const auto& p : r.parts) {
+      const std::string name = (p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label);
+      const int before = p.counts[last - 1], after = p.counts[last];
+      if (before == 0 && after > 0) on.push_back(name + " (" + std::to_string(after) + " independent)");
+      else (after > 0 ? allowed : forbidden).push_back(name);
+    }
+    const char* bullet = f == Format::markdown ? "- " : "  ";
+    const char* end = f == Format::latex ? "\\\\\n" : "\n";
+    if (on.empty()) os << bullet << "nothing new: every part allowed now was allowed before" << end;
+    for (const auto& n : on) os << bullet << "switched on: " << n << end;
+    os << bullet << "allowed before and after: " << (allowed.empty() ? "none" : std::to_string(allowed.size()) + " parts")
+       << end << bullet << "forbidden after the last step: "
+       << (forbidden.empty() ? "none" : std::to_string(forbidden.size()) + " parts") << end
+       << bullet << "the details of every part follow" << end << "\n";
+  }
+
   for (std::size_t k = 0; k < r.parts.size(); ++k) {
     const auto& p = r.parts[k];
     os << heading(p.response_id.empty() ? "tensor " + p.spec.canonical_text()

@@ -245,7 +245,7 @@ Scenario parse_scenario(const std::string& text, const std::string& path) {
   sc.responses = get_strings(root, "responses", path);
   sc.tensors = get_strings(root, "tensors", path);
   for (const auto& id : sc.responses)
-    check_at(position_of(root, "responses", path), [&] { ResponseCatalogue::builtin().get(id); });
+    check_at(position_of(root, "responses", path), [&] { ResponseCatalogue::builtin().expand(id); });
   for (const auto& t : sc.tensors) check_at(position_of(root, "tensors", path), [&] { parse_tensor_spec(t); });
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains"}, path, "[report]");

@@ -322,7 +322,11 @@ ScenarioResult run_scenario(const Scenario& sc) {
   }
 
   const auto& responses = ResponseCatalogue::builtin();
-  for (const auto& id : sc.responses) {
+  std::vector<std::string> ids; // "all" and families expanded, each response once
+  for (const auto& asked : sc.responses)
+    for (const auto& id : responses.expand(asked))
+      if (std::find(ids.begin(), ids.end(), id) == ids.end()) ids.push_back(id);
+  for (const auto& id : ids) {
     const Response& r = responses.get(id);
     for (const auto& part : r.parts) res.parts.push_back({r.id, r.name, part.label, part.spec, part.excluded, {}, {}});
   }
