@@ -44,7 +44,7 @@ namespace ts::bench {
 namespace {
 
 // The built-in specs up to rank 4, each with a response it stands for
-// (physics-spec.md, section 1).
+// (docs/responses.md).
 struct CatalogueSpec {
   const char* text;
   const char* meaning;

@@ -230,7 +230,7 @@ TEST_CASE("Boyd: SHG tensor (jk symmetric, V[V2]) from the same table", "[boyd][
   const TensorSpec shg = parse_tensor_spec("d_ijk: sym(jk)");
   for (const auto& [cls, text] : kBoydTable)
     check_against_table(impose(parse_table(text), kSwapJK), shg, group(cls), "class " + cls);
-  // Explicit d-matrix statements (Boyd §1.5.6 contracted notation; physics-spec §7 rows 10-13).
+  // Explicit d-matrix statements (Boyd §1.5.6 contracted notation).
   AllowedForm f43 = allowed_form(shg, group("-43m"));
   CHECK(same(d(f43, 2, 5), d(f43, 1, 4)));
   CHECK(same(d(f43, 3, 6), d(f43, 1, 4)));
@@ -257,7 +257,7 @@ TEST_CASE("Boyd: Kleinman symmetry (full permutation symmetry, [V3])", "[boyd][k
   const TensorSpec kl = parse_tensor_spec("[V3]");
   for (const auto& [cls, text] : kBoydTable)
     check_against_table(impose(parse_table(text), kAllPerms), kl, group(cls), "class " + cls + " (Kleinman)");
-  // Boyd §1.5.5 and physics-spec R15: 422 and 622 vanish, so do 432 and the centrosymmetric classes.
+  // Boyd §1.5.5: 422 and 622 vanish, so do 432 and the centrosymmetric classes.
   for (const char* c : {"422", "622", "432"}) {
     INFO("class " << c);
     CHECK(count("[V3]", c) == 0);

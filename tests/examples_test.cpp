@@ -2,6 +2,8 @@
 // recorded report byte for byte (canonical output: same input, same bytes).
 // The recorded reports were checked by hand against the lowering rules of
 // docs/scenarios.md; their physics is tested with named sources elsewhere.
+#include "support/cli_run.hpp"
+
 #include <catch2/catch.hpp>
 
 #include <cstdio>
@@ -31,7 +33,8 @@ TEST_CASE("worked examples reproduce their recorded reports", "[examples][cli]")
     expected.replace_extension(".expected");
     if (!fs::exists(expected)) continue;
     ++count;
-    fs::path out = fs::temp_directory_path() / ("tensorsieve-example-" + e.path().stem().string() + ".txt");
+    ts::test::TempDir dir; // unique per run: parallel ctest runs never share a file
+    fs::path out = dir / (e.path().stem().string() + ".txt");
     std::string cmd = "cd '" + src.string() + "' && '" TENSORSIEVE_BINARY "' run 'examples/" +
                       e.path().filename().string() + "' --output '" + out.string() + "'";
     int rc = std::system(cmd.c_str());
@@ -47,8 +50,9 @@ TEST_CASE("worked examples reproduce their recorded reports", "[examples][cli]")
 TEST_CASE("the one-off sample command builds the same scenario as a file", "[examples][cli]") {
   // examples/strained-film.toml written as options: the chain and forms must agree.
   fs::path src(TENSORSIEVE_SOURCE_DIR);
-  fs::path a = fs::temp_directory_path() / "tensorsieve-sample-a.json";
-  fs::path b = fs::temp_directory_path() / "tensorsieve-sample-b.json";
+  ts::test::TempDir dir;
+  fs::path a = dir / "sample-a.json";
+  fs::path b = dir / "sample-b.json";
   std::string run = "cd '" + src.string() + "' && '" TENSORSIEVE_BINARY "' run examples/strained-film.toml -f json -o '" +
                     a.string() + "'";
   std::string sample = "'" TENSORSIEVE_BINARY "' sample m-3m --a 3.95 --cut '(001)' --x '[100]' --lower 'strain:[100]' "
@@ -75,8 +79,9 @@ TEST_CASE("a scenario report comes in every format", "[examples][cli][formats]")
   // JSON parses (Python's json module, a reference parser), Markdown has tables,
   // LaTeX is plain ASCII with the Unicode symbols as \ensuremath commands (pdflatex-safe).
   fs::path src(TENSORSIEVE_SOURCE_DIR);
+  ts::test::TempDir dir;
   auto run = [&](const std::string& fmt) {
-    fs::path out = fs::temp_directory_path() / ("tensorsieve-example." + fmt);
+    fs::path out = dir / ("example." + fmt);
     std::string cmd = "cd '" + src.string() + "' && '" TENSORSIEVE_BINARY "' run examples/strained-film.toml -f " +
                       fmt + " -o '" + out.string() + "'";
     REQUIRE(std::system(cmd.c_str()) == 0);
@@ -85,7 +90,7 @@ TEST_CASE("a scenario report comes in every format", "[examples][cli][formats]")
     return text;
   };
   std::string json = run("json");
-  fs::path jpath = fs::temp_directory_path() / "tensorsieve-example-check.json";
+  fs::path jpath = dir / "example-check.json";
   std::ofstream(jpath) << json;
   std::string check = "python3 -c \"import json,sys; d=json.load(open(sys.argv[1])); "
                       "assert d['chain'] and d['parts'] and 'switched_on' in d['parts'][0]['changes'][0]\" '" +

@@ -69,7 +69,10 @@ std::string joined(const std::set<std::string>& v) {
 }
 
 // The standard type symbols of each family (the 32 crystallographic types), in the
-// tables of Birss 1964 and ITC Vol. D ch. 1.5 (from memory), written in the modern
+// tables of International Tables for Crystallography Vol. D (2003), ch. 1.5, Table 1.5.7.1,
+// and Bradley and Cracknell, The Mathematical Theory of Symmetry in Solids (1972), Table 7.1
+// (from memory): where a type occurs in two orientations (4'mm' and 4'm'm, 4'/mmm' and
+// 4'/mm'm) these are the names those tables give. Written in the modern
 // notation with -3 for the rotoinversion (Birss writes m3m, m'3m, ...).
 const std::map<std::string, std::set<std::string>> kFamilies = {
     {"1", {"1", "11'"}},
@@ -84,9 +87,9 @@ const std::map<std::string, std::set<std::string>> kFamilies = {
     {"-4", {"-4", "-41'", "-4'"}},
     {"4/m", {"4/m", "4/m1'", "4'/m", "4/m'", "4'/m'"}},
     {"422", {"422", "4221'", "4'22'", "42'2'"}},
-    {"4mm", {"4mm", "4mm1'", "4'm'm", "4m'm'"}},
+    {"4mm", {"4mm", "4mm1'", "4'mm'", "4m'm'"}},
     {"-42m", {"-42m", "-42m1'", "-4'2'm", "-4'2m'", "-42'm'"}},
-    {"4/mmm", {"4/mmm", "4/mmm1'", "4/m'mm", "4'/mm'm", "4'/m'm'm", "4/mm'm'", "4/m'm'm'"}},
+    {"4/mmm", {"4/mmm", "4/mmm1'", "4/m'mm", "4'/mmm'", "4'/m'm'm", "4/mm'm'", "4/m'm'm'"}},
     {"3", {"3", "31'"}},
     {"-3", {"-3", "-31'", "-3'"}},
     {"32", {"32", "321'", "32'"}},
@@ -299,7 +302,7 @@ TEST_CASE("catalogue: orientation variants of primed symbols", "[catalogue]") {
       {"mmm'", "m'mm"},     {"m'mm'", "m'm'm"},   {"mm'm'", "m'm'm"},     {"112'", "2'"},
       {"11m'", "m'"},       {"112'/m", "2'/m"},   {"112/m'", "2/m'"},     {"112'/m'", "2'/m'"},
       {"2'11", "2'"},       {"m'11", "m'"},       {"2'/m11", "2'/m"},     {"2/m'11", "2/m'"},
-      {"4'mm'", "4'm'm"},   {"4'2'2", "4'22'"},   {"4'/mmm'", "4'/mm'm"}, {"4'/m'mm'", "4'/m'm'm"},
+      {"4'm'm", "4'mm'"},   {"4'2'2", "4'22'"},   {"4'/mm'm", "4'/mmm'"}, {"4'/m'mm'", "4'/m'm'm"},
       {"-4'm2'", "-4'2'm"}, {"-4'm'2", "-4'2m'"}, {"-4m'2'", "-42'm'"},   {"312'", "32'"},
       {"31m'", "3m'"},      {"-3'1m", "-3'm"},    {"-3'1m'", "-3'm'"},    {"-31m'", "-3m'"},
       {"-6'2'm", "-6'm2'"}, {"-6'2m'", "-6'm'2"}, {"-62'm'", "-6m'2'"},   {"6'2'2", "6'22'"},
@@ -339,7 +342,7 @@ TEST_CASE("catalogue: lookup by Schoenflies symbol, aliases and spellings", "[ca
   // Schoenflies: G, G1' (grey) and G(H) (black-white with unitary subgroup H);
   // S6 and C3i are two names of one class (ITA Vol. A, from memory).
   const std::vector<std::pair<std::string, std::string>> schoenflies = {
-      {"C4v", "4mm"},         {"C4v1'", "4mm1'"},     {"D4h(D2h)", "4'/mm'm"}, {"D4h(C4v)", "4/m'mm"},
+      {"C4v", "4mm"},         {"C4v1'", "4mm1'"},     {"D4h(D2h)", "4'/mmm'"}, {"D4h(C4v)", "4/m'mm"},
       {"D4h(D2d)", "4'/m'm'm"}, {"D4h(C4h)", "4/mm'm'"}, {"D4h(D4)", "4/m'm'm'"}, {"C2v(Cs)", "m'm2'"},
       {"C2v(C2)", "m'm'2"},   {"D2h(C2v)", "m'mm"},   {"D2h(C2h)", "m'm'm"},   {"D2h(D2)", "m'm'm'"},
       {"D3d(D3)", "-3'm'"},   {"D3d(C3v)", "-3'm"},   {"D3d(C3i)", "-3m'"},    {"Oh(O)", "m'-3'm'"},

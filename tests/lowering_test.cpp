@@ -37,7 +37,7 @@ std::string type_of(const PointGroup& g) { return identify(g, cat()).type->symbo
 
 TEST_CASE("cubic m-3m cut along (001), (110), (111) gives 4mm, mm2, 3m", "[lowering][cut]") {
   // International Tables Vol. A (site symmetries of the cube faces, edges and corners);
-  // physics-spec.md §2(a); common practice.
+  // common practice.
   CHECK(type_of(interface_group("m-3m", "(001)")) == "4mm");
   CHECK(type_of(interface_group("m-3m", "(110)")) == "mm2");
   PointGroup g111 = interface_group("m-3m", "(111)");
@@ -54,7 +54,7 @@ TEST_CASE("cubic m-3m cut along (001), (110), (111) gives 4mm, mm2, 3m", "[lower
 }
 
 TEST_CASE("a tetragonal distortion along one cubic axis leaves one mirror line on (111)", "[lowering][strain]") {
-  // physics-spec.md §2(a) table, row "tetragonal c ∥ [100]": (111) -> m; common practice.
+  // A tetragonal crystal with c ∥ [100]: (111) -> m; common practice.
   PointGroup g = interface_group("m-3m", "(111)");
   PointGroup h = stabiliser(g, {QuantityKind::strain, {}, uniaxial_strain(v(1, 0, 0))});
   CHECK(type_of(h) == "m");
@@ -65,7 +65,7 @@ TEST_CASE("a tetragonal distortion along one cubic axis leaves one mirror line o
 }
 
 TEST_CASE("a moment or field lowers a grey group to the magnetic groups of the tables", "[lowering][magnetic]") {
-  // Birss, Symmetry and Magnetism (1964); physics-spec.md §7 row 20.
+  // Birss, Symmetry and Magnetism (1964).
   PointGroup grey = cat().get("4mm1'").group;
   PointGroup mz = stabiliser(grey, {QuantityKind::axial_odd, v(0, 0, 1), Mat3::identity()});
   CHECK(identify(mz, cat()).same_setting->symbol == "4m'm'");
@@ -82,7 +82,7 @@ TEST_CASE("a moment or field lowers a grey group to the magnetic groups of the t
 }
 
 TEST_CASE("3m1' with an in-plane field: in a mirror plane gives m', normal to it gives m", "[lowering][magnetic]") {
-  // physics-spec.md §7 row 21 (Birss method); Battilomo et al., Phys. Rev. Research 3, L012006 (2021).
+  // Birss's method; Battilomo et al., Phys. Rev. Research 3, L012006 (2021).
   PointGroup grey = cat().get("3m1'").group; // mirror normal ∥ x
   PointGroup in_plane = stabiliser(grey, {QuantityKind::axial_odd, v(0, 1, 0), Mat3::identity()}); // B ∥ y lies in the mirror
   PointGroup normal = stabiliser(grey, {QuantityKind::axial_odd, v(1, 0, 0), Mat3::identity()});   // B ⊥ mirror
@@ -115,7 +115,7 @@ TEST_CASE("plane normals come from the reciprocal metric", "[lowering][cut]") {
 }
 
 TEST_CASE("domain averages keep only what the parent allows", "[lowering][domains]") {
-  // Janovec & Přívratská, International Tables Vol. D ch. 3.4; physics-spec.md §5; common practice.
+  // Janovec & Přívratská, International Tables Vol. D ch. 3.4; common practice.
   PointGroup parent = cat().get("m-3m").group;
   PointGroup polar = stabiliser(parent, {QuantityKind::polar_even, v(0, 0, 1), Mat3::identity()}); // 4mm
   REQUIRE(type_of(polar) == "4mm");

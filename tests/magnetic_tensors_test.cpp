@@ -10,7 +10,7 @@
 //     Phys. JETP 10, 628 (1960): Cr2O3, magnetic class -3'm', alpha = diag(a_perp,
 //     a_perp, a_par) (title and form from memory).
 //   W. H. Kleiner, "Space-time symmetry of transport coefficients", Phys. Rev. 142, 318
-//     (1966): Onsager reciprocity as a group statement (physics-spec.md §0.3).
+//     (1966): Onsager reciprocity as a group statement.
 //   F. Seitz, "Note on the theory of resistance of a cubic semiconductor in a magnetic
 //     field", Phys. Rev. 79, 372 (1950): cubic magnetoresistance to second order in B has
 //     one Hall constant and three even constants (from memory).
@@ -91,7 +91,7 @@ const std::set<std::string> kPolarClasses = {"1", "2", "m", "mm2", "4", "4mm", "
 } // namespace
 
 TEST_CASE("the catalogue has the 122 magnetic point-group types: 32 + 32 + 58", "[magnetic]") {
-  // Birss 1964; physics-spec §7 row 1.
+  // Birss 1964.
   int colourless = 0, grey = 0, bw = 0;
   for (const auto* t : cat().types()) {
     colourless += t->kind == MagneticKind::colourless;
@@ -113,7 +113,7 @@ TEST_CASE("spontaneous magnetisation (aeV): exactly Birss' 31 ferromagnetic type
   const TensorSpec m = parse_tensor_spec("aeV");
   CHECK(nonzero_set(allowed_form(m, group("4m'm'"))) == std::set<std::string>{"z"});
   CHECK(nonzero_set(allowed_form(m, group("m'm'2"))) == std::set<std::string>{"z"});
-  // m'm2' and mm'2' are one type but put M along different lab axes (physics-spec §0.2).
+  // m'm2' and mm'2' are one type but put M along different lab axes.
   CHECK(cat().get("m'm2'").type_index == cat().get("mm'2'").type_index);
   CHECK(nonzero_set(allowed_form(m, group("m'm2'"))) == std::set<std::string>{"y"});
   CHECK(nonzero_set(allowed_form(m, group("mm'2'"))) == std::set<std::string>{"x"});
@@ -136,7 +136,7 @@ TEST_CASE("linear magnetoelectric tensor (aeV2): 58 types", "[magnetic][magnetoe
   // Birss 1964; Schmid 2008 (from memory): 58 magnetoelectric types.
   std::set<int> me = allowing_types("aeV2");
   CHECK(me.size() == 58);
-  // Necessary conditions (physics-spec R12): no 1' and no unprimed inversion.
+  // Necessary conditions: no 1' and no unprimed inversion.
   const Operation inversion{Mat3::identity().scaled(QSqrt3(-1)), false};
   for (const auto* t : cat().types())
     if (t->group.is_grey() || t->group.contains(inversion)) CHECK_FALSE(me.count(t->type_index));
@@ -154,7 +154,7 @@ TEST_CASE("linear magnetoelectric tensor (aeV2): 58 types", "[magnetic][magnetoe
 }
 
 TEST_CASE("piezomagnetism (ae[V2]V): 66 types, independent of the index order", "[magnetic][piezomagnetic]") {
-  // physics-spec R4/R18 write the tensor ae[V2]V (symmetric stress pair first); Birss 1964
+  // The tensor is written ae[V2]V (symmetric stress pair first); Birss 1964
   // (from memory) counts 66 piezomagnetic types. Putting the pair last must not matter.
   std::set<int> pm = allowing_types("ae[V2]V");
   CHECK(pm.size() == 66);
@@ -166,7 +166,7 @@ TEST_CASE("piezomagnetism (ae[V2]V): 66 types, independent of the index order", 
 }
 
 TEST_CASE("every c-type tensor vanishes in every grey group; i-type ones ignore 1'", "[magnetic][grey]") {
-  // Birss 1964, physics-spec §0.2: time reversal itself flips every c-type tensor.
+  // Birss 1964: time reversal itself flips every c-type tensor.
   const char* c_type[] = {"aeV", "aV", "aeV2", "aV2", "a[V2]", "ae[V2]", "a{V2}", "aV[V2]", "ae[V2]V",
                           "a[[V2]2]", "aV3", "a[V2][V2]", "aeV[V3]", "phi_abc: time-odd, antisym(ab)"};
   const char* i_type[] = {"V", "eV", "[V2]", "V[V2]", "eV[V2]", "[[V2]2]", "[V2][V2]"};
@@ -233,7 +233,7 @@ TEST_CASE("anomalous Hall: 4m'm' allows sigma_xy = -sigma_yx, 4mm1' does not", "
   CHECK(para.is_zero(code_of("yx")));
   CHECK(para.independent() == 2);
   // The symmetric part is an i-type [V2] of the magnetic group, the antisymmetric part
-  // a c-type axial vector (physics-spec §0.3, R3): a Hall term exists exactly where a
+  // a c-type axial vector: a Hall term exists exactly where a
   // moment may, in every one of the 122 types, and the counts add up.
   for (const auto* t : cat().types()) {
     INFO(t->symbol);

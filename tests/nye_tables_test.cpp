@@ -3,7 +3,7 @@
 //   Matrices, Oxford (Clarendon Press) 1957, reissued 1985.
 // Chapter and table are named beside each check. Table numbers and the exact
 // layout of Nye's schemes are quoted from memory (`from memory`); the counts
-// themselves also appear as check values in physics-spec.md §7 (rows 2-4, 6).
+// are the check values of this file.
 //
 // Frames: the library's standard settings, which are Nye's for these classes:
 // monoclinic with 2 ∥ y (Nye's "2 ∥ x2"), trigonal/hexagonal with x ∥ a, z ∥ c,
@@ -87,7 +87,7 @@ struct ClassRow {
 
 // Nye ch. IV §2 / Table 3 (second-rank tensors by system), ch. VII Table 8
 // (piezoelectric moduli), ch. VIII Table 9 (elastic stiffnesses), from memory;
-// piezo and elastic counts as in physics-spec.md §7 rows 3 and 4.
+// piezo and elastic counts (Nye 1957, from memory).
 const ClassRow kClasses[] = {
     {"1", 6, 18, 21},    {"-1", 6, 0, 21},   {"2", 4, 8, 13},     {"m", 4, 10, 13},    {"2/m", 4, 0, 13},
     {"222", 3, 3, 9},    {"mm2", 3, 5, 9},   {"mmm", 3, 0, 9},    {"4", 2, 4, 7},      {"-4", 2, 4, 7},
@@ -124,9 +124,9 @@ TEST_CASE("Nye: dielectric, piezoelectric and elastic counts in all 32 classes",
     INFO("class " << r.name);
     // Nye ch. IV, Table 3 (from memory): 1 cubic, 2 uniaxial, 3 orthorhombic, 4 monoclinic, 6 triclinic.
     CHECK(count("[V2]", r.name) == r.dielectric);
-    // Nye ch. VII, Table 8 (from memory); physics-spec §7 row 3.
+    // Nye ch. VII, Table 8 (from memory).
     CHECK(count("V[V2]", r.name) == r.piezo);
-    // Nye ch. VIII, Table 9 (from memory); physics-spec §7 row 4.
+    // Nye ch. VIII, Table 9 (from memory).
     CHECK(count("[[V2]2]", r.name) == r.elastic);
   }
 }

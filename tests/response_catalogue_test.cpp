@@ -115,8 +115,8 @@ TEST_CASE("the built-in catalogue loads and is well formed", "[responses]") {
   }
 }
 
-TEST_CASE("every response of physics-spec section 1 has an entry", "[responses]") {
-  // R1 ... R18 of /work/shared/physics-spec.md, by the id chosen for each.
+TEST_CASE("every response of the catalogue's list R1 ... R18 has an entry", "[responses]") {
+  // R1 ... R18 as numbered in the headings of src/response/catalogue.toml, by the id chosen for each.
   const char* ids[] = {"conductivity", "resistivity", "ordinary-hall", "anomalous-hall",
                        "magnetoconductivity-linear", "magnetoconductivity-quadratic", "anisotropic-magnetoresistance",
                        "in-plane-hall", "magnetochiral-anisotropy", "unidirectional-magnetoresistance",

@@ -1,9 +1,9 @@
 // Physics through the response catalogue: the tensors the catalogue names for
 // each effect, projected in the crystallographic and magnetic point groups,
 // against published rules and tables. Each check names its outside source and
-// its status (as /work/shared/physics-spec.md tags it): [checked], [title
+// its status tag (docs/responses.md): [checked], [title
 // checked], [from memory], or [common practice]. Checks that rest only on the
-// project's own derivations say so ([computed] in physics-spec.md, or derived here).
+// project's own derivations say so ([computed], derived here).
 #include "group/group_catalogue.hpp"
 #include "response/response_catalogue.hpp"
 
@@ -154,7 +154,7 @@ TEST_CASE("c-type parts without an Onsager exchange vanish in every grey group",
 }
 
 TEST_CASE("anomalous Hall: exactly the 31 ferromagnetic types", "[responses][physics]") {
-  // Birss 1964 [from memory]; physics-spec R3 [computed]. The 31 types that admit a ferromagnetic moment.
+  // Birss 1964 [from memory]. The 31 types that admit a ferromagnetic moment.
   const std::set<std::string> ferromagnetic{"1", "-1", "2", "2'", "m", "m'", "2/m", "2'/m'", "2'2'2", "m'm2'", "m'm'2",
                                             "m'm'm", "4", "-4", "4/m", "42'2'", "4m'm'", "-42'm'", "4/mm'm'", "3", "-3",
                                             "32'", "3m'", "-3m'", "6", "-6", "6/m", "62'2'", "6m'm'", "-6m'2'",
@@ -167,7 +167,7 @@ TEST_CASE("anomalous Hall: exactly the 31 ferromagnetic types", "[responses][phy
     INFO(p.spec_text);
     CHECK(allowed_in(p, types) == ferromagnetic);
   }
-  // The same symmetry for the spontaneous moment and the Kerr gyration vector (physics-spec R13, R18).
+  // The same symmetry for the spontaneous moment and the Kerr gyration vector.
   CHECK(allowed_in(part("spontaneous-magnetization", "M_i: axial, time-odd"), types) == ferromagnetic);
   CHECK(allowed_in(part("magneto-optic-kerr", "g_a: axial, time-odd"), types) == ferromagnetic);
 }
@@ -200,7 +200,7 @@ TEST_CASE("anomalous Hall: 4mm1' forbids it, 4m'm' allows sigma_xy = -sigma_yx",
 }
 
 TEST_CASE("Berry-curvature dipole: exactly the 16 classes", "[responses][physics]") {
-  // Sodemann & Fu, PRL 115, 216806 (2015) [checked]; class list of physics-spec R9 [computed]: zero in 23 and 432
+  // Sodemann & Fu, PRL 115, 216806 (2015) [checked]; class list [computed: an independent group-projection count]: zero in 23 and 432
   // (D ∝ δ, whose trace does not enter), in -6, -6m2, -43m and all centrosymmetric classes.
   const std::set<std::string> bcd{"1",   "2",    "m",  "222", "mm2", "4",  "-4",  "422",
                                   "4mm", "-42m", "3",  "32",  "3m",  "6",  "622", "6mm"};
@@ -222,7 +222,7 @@ TEST_CASE("Berry-curvature dipole: exactly the 16 classes", "[responses][physics
 }
 
 TEST_CASE("exact Hall split of the nonlinear conductivities in all 122 types", "[responses][physics]") {
-  // physics-spec 0.5: 18 = 10 + 8 at second order (Nandy & Sodemann, PRB 100, 195117 (2019) [title checked]);
+  // 18 = 10 + 8 at second order (Nandy & Sodemann, PRB 100, 195117 (2019) [title checked]);
   // 30 = 15 + 15 at third order [computed]. The decomposition is O(3)-invariant, so in every group the count of the
   // whole tensor is the symmetric count plus the Hall count (derived here); this also checks the excluded pieces.
   struct Split {
@@ -249,7 +249,7 @@ TEST_CASE("exact Hall split of the nonlinear conductivities in all 122 types", "
 }
 
 TEST_CASE("third-order Hall part: forbidden only in 432, -43m and m-3m", "[responses][physics]") {
-  // physics-spec R17 and check 19 [computed]; Lai et al., Nat. Nanotechnol. 16, 869 (2021) [title checked] for the
+  // Lai et al., Nat. Nanotechnol. 16, 869 (2021) [title checked] for the
   // effect itself. One component in 23 and m-3.
   const ResponsePart& hall = part("third-order-conductivity", "Q_abc: axial, time-even, sym(bc)");
   const auto classes = groups().crystallographic_types();
@@ -260,7 +260,7 @@ TEST_CASE("third-order Hall part: forbidden only in 432, -43m and m-3m", "[respo
 
 TEST_CASE("electrical magnetochiral anisotropy: the 21 noncentrosymmetric classes", "[responses][physics]") {
   // Rikken, Fölling & Wyder, PRL 87, 236602 (2001) [checked] for the effect; the count of 21 classes is
-  // common practice. Component counts of physics-spec R7 [computed], an independent projection by the spec's author.
+  // common practice. Component counts [computed: an independent group-projection count].
   const ResponsePart& g = part("magnetochiral-anisotropy", "gamma_abcd: axial, time-even, sym(bc)");
   const auto classes = groups().crystallographic_types();
   CHECK(allowed_in(g, classes) == minus(all_symbols(classes), kCentrosymmetric));
@@ -284,7 +284,7 @@ TEST_CASE("linear magnetoelectric effect: 58 types; Cr2O3", "[responses][physics
   CHECK_FALSE(f.is_zero(code("zz")));
   CHECK_FALSE(equal(f.value(code("xx")), f.value(code("zz"))));
   for (const char* off : {"xy", "yx", "xz", "zx", "yz", "zy"}) CHECK(f.is_zero(code(off)));
-  // -3'm with primed 2-fold axes: only the antisymmetric (toroidal) part (physics-spec R12 [computed]).
+  // -3'm with primed 2-fold axes: only the antisymmetric (toroidal) part.
   const auto& g2 = groups().get("-3'm").group;
   CHECK(independent_count(part("linear-magnetoelectric", "alpha_ij: axial, time-odd, sym(ij)"), g2) == 0);
   CHECK(independent_count(part("linear-magnetoelectric", "alpha_ij: axial, time-odd, antisym(ij)"), g2) == 1);
@@ -307,12 +307,12 @@ TEST_CASE("electric-dipole SHG: zero in the 11 centrosymmetric classes and in 43
   CHECK(gaas.independent() == 1);
   CHECK(equal(gaas.value(code("xyz")), gaas.value(code("yxz"))));
   CHECK(equal(gaas.value(code("xyz")), gaas.value(code("zxy"))));
-  // Kleinman symmetry also removes 422 and 622: 18 classes (physics-spec R15 [computed]).
+  // Kleinman symmetry also removes 422 and 622: 18 classes.
   CHECK(allowed_in(part("electric-dipole-shg", "chi_ijk: polar, time-even, sym(ijk)"), classes).size() == 18);
 }
 
 TEST_CASE("piezoelectric counts, pyroelectric classes and elastic counts", "[responses][physics]") {
-  // Nye, Physical Properties of Crystals (1957) [from memory]; physics-spec check values 2-4.
+  // Nye, Physical Properties of Crystals (1957) [from memory].
   const std::map<std::string, int> piezo{{"1", 18}, {"2", 8},   {"m", 10},  {"222", 3}, {"mm2", 5},  {"4", 4},
                                          {"-4", 4}, {"422", 1}, {"4mm", 3}, {"-42m", 2}, {"3", 6},   {"32", 2},
                                          {"3m", 4}, {"6", 4},   {"-6", 2},  {"622", 1}, {"6mm", 3},  {"-6m2", 1},
@@ -342,7 +342,7 @@ TEST_CASE("magnetoresistance of a cubic crystal (Seitz)", "[responses][physics]"
   const ResponsePart& mr = part("magnetoconductivity-quadratic", "sigma_abkl: polar, time-even, sym(ab), sym(kl)");
   for (const char* g : {"432", "-43m", "m-3m"}) CHECK(independent_count(mr, groups().get(std::string(g) + "1'").group) == 3);
   for (const char* g : {"23", "m-3"}) CHECK(independent_count(mr, groups().get(std::string(g) + "1'").group) == 4);
-  // Triclinic maximum, 36 (physics-spec R4 [computed]).
+  // Triclinic maximum, 36.
   CHECK(independent_count(mr, groups().get("11'").group) == 36);
 }
 
@@ -351,8 +351,8 @@ TEST_CASE("optical activity: 15 classes; the full axial tensor and the Edelstein
   const std::set<std::string> active{"1", "2", "m", "222", "mm2", "4", "-4", "422", "-42m", "3", "32", "6", "622", "23", "432"};
   const auto classes = groups().crystallographic_types();
   CHECK(allowed_in(part("optical-activity", "g_ij: axial, time-even, sym(ij)"), classes) == active);
-  // With the antisymmetric part: adds 4mm, 3m, 6mm (physics-spec R14 [computed]); the current-induced spin
-  // polarisation of a nonmagnetic crystal has the same 18 classes (physics-spec R11 [computed]).
+  // With the antisymmetric part: adds 4mm, 3m, 6mm; the current-induced spin
+  // polarisation of a nonmagnetic crystal has the same 18 classes.
   std::set<std::string> gyrotropic = active;
   gyrotropic.insert({"4mm", "3m", "6mm"});
   CHECK(allowed_in(part("optical-activity", "g_ij: axial, time-even"), classes) == gyrotropic);
@@ -363,7 +363,7 @@ TEST_CASE("optical activity: 15 classes; the full axial tensor and the Edelstein
 
 TEST_CASE("Hall signal from an in-plane field on polar surfaces", "[responses][physics]") {
   // Kurumaji, Phys. Rev. Research 5, 023138 (2023) [checked]: the symmetry requirement for a Hall signal n·h from an
-  // in-plane field. Values of physics-spec R6 [computed]: 4mm, mm2 (2 ∥ n): zero at first and third order;
+  // in-plane field. Values [computed: an independent group-projection count]: 4mm, mm2 (2 ∥ n): zero at first and third order;
   // m (mirror normal y, n = z): n·h ∝ B_x; 3m (mirror normal x): first order zero, third order ∝ sin 3φ_B.
   const ResponsePart& c1 = part("in-plane-hall", "c_ia: polar, time-even");
   const ResponsePart& c3 = part("in-plane-hall", "c_iabc: polar, time-even, sym(abc)");

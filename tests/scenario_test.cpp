@@ -4,6 +4,8 @@
 #include "group/identify.hpp"
 #include "scenario/scenario_run.hpp"
 
+#include "support/cli_run.hpp"
+
 #include <catch2/catch.hpp>
 
 #include <cstdlib>
@@ -35,8 +37,14 @@ LoweringStep step(LoweringKind k, const std::string& along, const std::string& v
   return s;
 }
 
+// One scratch directory per test process: parallel ctest runs never share a file.
+const ts::test::TempDir& scratch() {
+  static const ts::test::TempDir dir;
+  return dir;
+}
+
 fs::path write_temp(const std::string& name, const std::string& text) {
-  fs::path p = fs::temp_directory_path() / name;
+  fs::path p = scratch() / name;
   std::ofstream(p) << text;
   return p;
 }
@@ -46,7 +54,7 @@ struct Run {
   std::string err;
 };
 Run cli(const std::string& args) {
-  fs::path err = fs::temp_directory_path() / "tensorsieve-scenario-err.txt";
+  fs::path err = scratch() / "cli-err.txt";
   std::string cmd = "'" TENSORSIEVE_BINARY "' " + args + " > /dev/null 2> '" + err.string() + "'";
   int rc = std::system(cmd.c_str());
   std::ifstream in(err);
@@ -70,7 +78,7 @@ TEST_CASE("hematite-type weak ferromagnet: in-plane moments of -3m1' give the 2/
   CHECK(final_type(ra) == "2/m");
   CHECK(final_type(rp) == "2'/m'");
   CHECK(rp.parts.front().forms.back().independent() >= 1);
-  // Below the Morin transition the moments lie along c: -3m (type I), no net moment (physics-spec.md §7 row 9).
+  // Below the Morin transition the moments lie along c: -3m (type I), no net moment.
   Scenario axial = basic("-3m");
   axial.steps = {step(LoweringKind::magnetic_group, "", "-3m")};
   axial.responses = {"spontaneous-magnetization"};
@@ -132,7 +140,7 @@ TEST_CASE("octahedral tilts lower a cubic perovskite to the point group of its s
   CHECK(final_type(run_scenario(s)) == "-3m1'");
   s.steps = {step(LoweringKind::tilts, "", "a+b-b-")};
   CHECK(final_type(run_scenario(s)) == "mmm1'");
-  // a0a0c- on a (001) film keeps 4mm1' in the standard sample frame (physics-spec.md §2(a): use 4/mmm rows).
+  // a0a0c- on a (001) film keeps 4mm1' in the standard sample frame (common practice: tilts about the film normal keep the 4/mmm rows).
   s.cut = "(001)";
   s.steps = {step(LoweringKind::tilts, "", "a0a0c-")};
   ScenarioResult r = run_scenario(s);
@@ -140,7 +148,7 @@ TEST_CASE("octahedral tilts lower a cubic perovskite to the point group of its s
 }
 
 TEST_CASE("(110) and (111) films: sample frames and chains of the trade", "[scenario][cut]") {
-  // physics-spec.md §3 defaults (common practice): (110) x ∥ [001], y ∥ [1-10]; (111) x ∥ [1-10], y ∥ [11-2].
+  // Default in-plane axes (common practice): (110) x ∥ [001], y ∥ [1-10]; (111) x ∥ [1-10], y ∥ [11-2].
   Scenario s = basic("m-3m");
   s.cut = "(110)";
   ScenarioResult r = run_scenario(s);
@@ -152,14 +160,14 @@ TEST_CASE("(110) and (111) films: sample frames and chains of the trade", "[scen
   CHECK(r.frame_labels[0] == "[1-10]");
   CHECK(r.frame_labels[1] == "[11-2]");
   CHECK(r.chain.back().sample_symbol == "3m1'");
-  // A tetragonal distortion along [100] leaves the single mirror (01-1) (physics-spec.md §2(a) table).
+  // A tetragonal distortion along [100] leaves the single mirror (01-1).
   s.steps = {step(LoweringKind::strain, "[100]")};
   r = run_scenario(s);
   CHECK(final_type(r) == "m1'");
 }
 
 TEST_CASE("what switched on: a polar in-plane distortion of a (001) interface", "[scenario][switched-on]") {
-  // physics-spec.md §6 example (common practice): chi_xxx (2ω, current ∥ [100]) is forbidden on a 4mm1'
+  // A worked example (common practice): chi_xxx (2ω, current ∥ [100]) is forbidden on a 4mm1'
   // interface and allowed once an in-plane polar distortion ∥ [100] leaves the mirror ⊥ [010].
   Scenario s = basic("m-3m");
   s.tensors = {"chi_abc: polar, time-even, sym(bc)"};
@@ -238,7 +246,7 @@ TEST_CASE("hexagonal films: Miller-Bravais cuts and the c/a metric", "[scenario]
 
 TEST_CASE("cut x distortion table of a cubic perovskite", "[scenario][cut][table]") {
   // Interface groups of one domain variant on (001), (110), (111): stabiliser of the normal within the
-  // distorted group (common practice: site-symmetry reasoning; the table of physics-spec.md §2(a)).
+  // distorted group (common practice: site-symmetry reasoning).
   // Each entry: type and the normals of the mirrors that remain.
   struct Row {
     LoweringKind kind;

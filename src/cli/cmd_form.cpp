@@ -14,17 +14,19 @@ void setup_form(CLI::App& app) {
     OutputOptions out;
     std::string group, spec, view = "auto";
     FrameOptions frame;
+    bool colourless = false;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("form", "the symmetry-allowed form of a tensor in a point group");
-  cmd->add_option("group", o->group, "point group symbol, e.g. 4mm, -3'm', m'm2'")->required();
+  cmd->add_option("group", o->group, kGroupSymbolHelp)->required();
   cmd->add_option("spec", o->spec, "tensor: Jahn symbol (V[V2]) or index spec (\"d_ijk: polar, sym(jk)\")")->required();
   add_frame_options(*cmd, o->frame);
   cmd->add_option("--view", o->view, "auto, components, matrix, dmatrix or voigt")->capture_default_str();
+  add_colourless_flag(*cmd, o->colourless);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     const auto& cat = GroupCatalogue::builtin();
-    const NamedGroup& g = cat.get(o->group);
+    const NamedGroup& g = cat.get(o->group, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
     TensorSpec spec = parse_tensor_spec(o->spec);
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);
@@ -39,17 +41,28 @@ void setup_survey(CLI::App& app) {
   struct Opts {
     OutputOptions out;
     std::string spec;
-    bool magnetic = false;
+    bool magnetic = false, colourless = false;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("survey", "count a tensor's independent components in every point group");
   cmd->add_option("spec", o->spec, "tensor: Jahn symbol or index spec")->required();
-  cmd->add_flag("-m,--magnetic", o->magnetic, "survey the 122 magnetic point-group types (default: the 32 classes)");
+  cmd->add_flag("-m,--magnetic", o->magnetic,
+                "survey the 122 magnetic point-group types (default: the 32 classes as non-magnetic crystals, G1')");
+  cmd->add_flag("--colourless", o->colourless,
+                "survey the 32 classes as colourless groups G (magnetic order, no time reversal), not as G1'");
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     const auto& cat = GroupCatalogue::builtin();
     TensorSpec spec = parse_tensor_spec(o->spec);
-    auto groups = o->magnetic ? cat.types() : cat.crystallographic_types();
+    if (o->magnetic && o->colourless)
+      fail(ErrorKind::usage, "-m lists every magnetic type already; --colourless picks the 32 colourless ones",
+           "--colourless", "either -m or --colourless");
+    std::vector<const NamedGroup*> groups;
+    if (o->magnetic) {
+      groups = cat.types();
+    } else {
+      for (const NamedGroup* g : cat.crystallographic_types()) groups.push_back(o->colourless ? g : &cat.grey_of(*g));
+    }
     emit(o->out, write_survey(spec, survey(spec, groups), parse_format(o->out.format)));
   });
 }

@@ -34,16 +34,18 @@ void setup_group(CLI::App& app) {
   struct Opts {
     OutputOptions out;
     std::string symbol;
-    bool subgroups = false;
+    bool subgroups = false, colourless = false;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("group", "describe one point group: type, setting, operations, subgroups");
-  cmd->add_option("symbol", o->symbol, "Hermann-Mauguin (4mm, m'm2', 3m1') or Schoenflies (C4v) symbol")->required();
+  cmd->add_option("symbol", o->symbol, kGroupSymbolHelp)->required();
   cmd->add_flag("--subgroups", o->subgroups, "list every subgroup with its operations");
+  add_colourless_flag(*cmd, o->colourless);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     const auto& cat = GroupCatalogue::builtin();
-    emit(o->out, write_group_description(cat.get(o->symbol), o->subgroups, cat, parse_format(o->out.format)));
+    const NamedGroup& g = cat.get(o->symbol, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
+    emit(o->out, write_group_description(g, o->subgroups, cat, parse_format(o->out.format)));
   });
 }
 

@@ -26,18 +26,21 @@ void setup_response_form(CLI::App& app) {
     OutputOptions out;
     std::string id, group, view = "auto";
     FrameOptions frame;
+    bool colourless = false;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("response", "describe a physical response and its allowed form in a point group");
   cmd->add_option("id", o->id, "response id or alias, e.g. anomalous-hall, shg, bcd (`tensorsieve responses`)")
       ->required();
-  cmd->add_option("group", o->group, "point group symbol, e.g. 4mm1', 4m'm', -3'm'")->required();
+  cmd->add_option("group", o->group, kGroupSymbolHelp)->required();
   add_frame_options(*cmd, o->frame);
   cmd->add_option("--view", o->view, "auto, components, matrix, dmatrix or voigt")->capture_default_str();
+  add_colourless_flag(*cmd, o->colourless);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     const Response& r = ResponseCatalogue::builtin().get(o->id);
-    const NamedGroup& g = GroupCatalogue::builtin().get(o->group);
+    const NamedGroup& g = GroupCatalogue::builtin().get(
+        o->group, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);
     FrameContext fc;

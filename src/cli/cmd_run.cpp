@@ -44,8 +44,13 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--structure-file", o->structure_file, "parent crystal from a CIF or mCIF file instead of a group");
   cmd->add_option("--occupancy", o->occupancy, "partial occupancy in the file: refuse (default) or ignore");
   cmd->add_option("--symprec", o->symprec, "distance tolerance for the file, Angstrom")->capture_default_str();
-  cmd->add_option("--response", o->sample.sc.responses, "response id from `tensorsieve responses` (repeatable)");
-  cmd->add_option("--tensor", o->sample.sc.tensors, "extra tensor spec (repeatable)");
+  // One value per occurrence, taken as written: CLI11 would otherwise read "[V2]" as a
+  // bracketed list and strip the brackets of a Jahn symbol.
+  cmd->add_option("--response", o->sample.sc.responses,
+                  "response id from `tensorsieve responses`, or all, transport, optics, equilibrium (repeatable)")
+      ->allow_extra_args(false);
+  cmd->add_option("--tensor", o->sample.sc.tensors, "extra tensor spec, e.g. \"[[V2]2]\" (repeatable)")
+      ->allow_extra_args(false);
   cmd->add_flag("--domains", o->sample.sc.domains, "orientation domains of the lowering and their average");
   add_fractions_option(*cmd, o->fractions);
   cmd->add_option("--bar", o->bars,
@@ -68,7 +73,8 @@ void setup_sample(CLI::App& app) {
   cmd->callback([o] {
     Scenario sc = scenario_from_options(o->sample);
     apply_fractions_option(o->fractions, sc);
-    if (sc.group.empty() == o->structure_file.empty())
+    // Neither given: the empty group symbol is refused by the catalogue with its own message.
+    if (!sc.group.empty() && !o->structure_file.empty())
       fail(ErrorKind::usage, "give the parent crystal once: a point group or --structure-file", "group/--structure-file",
            "tensorsieve sample m-3m ..., or tensorsieve sample --structure-file crystal.mcif ...");
     if (!o->structure_file.empty()) {

@@ -13,6 +13,11 @@ struct OutputOptions {
   std::string output = "-";
 };
 void add_output_options(CLI::App& cmd, OutputOptions& o);
+// --colourless, the one way to read a group symbol without primes as the colourless
+// magnetic group G instead of the non-magnetic crystal G1' (docs/conventions.md, section 3).
+void add_colourless_flag(CLI::App& cmd, bool& colourless);
+// Help text of a group-symbol argument, saying how a symbol without primes is read.
+extern const char* const kGroupSymbolHelp;
 void emit(const OutputOptions& o, const std::string& text); // atomic file write or stdout
 
 void setup_groups(CLI::App& app);

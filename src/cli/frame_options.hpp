@@ -27,13 +27,7 @@ inline void add_frame_options(CLI::App& cmd, FrameOptions& o) {
 
 inline std::optional<Rational> length_option(const std::string& s, const char* name) {
   if (s.empty()) return std::nullopt;
-  try {
-    double v = std::stod(s);
-    if (v > 0) return exact_decimal(v);
-  } catch (const std::exception&) {
-  }
-  fail(ErrorKind::usage, std::string("lattice parameter ") + name + " = '" + s + "' is not a positive number",
-       std::string("--") + name, "a length such as 3.905");
+  return decimal_length(s, std::string("--") + name, ErrorKind::usage);
 }
 
 inline LatticeMetric metric_option(const FrameOptions& o) {

@@ -3,6 +3,7 @@
 // subcommands and turns errors into messages and exit codes (docs/cli.md).
 #include "cli/commands.hpp"
 #include "core/error.hpp"
+#include "core/text.hpp"
 #include "report/output_file.hpp"
 
 #include <iostream>
@@ -12,6 +13,15 @@ namespace ts::cli {
 void add_output_options(CLI::App& cmd, OutputOptions& o) {
   cmd.add_option("-f,--format", o.format, "text (default), markdown, latex or json")->capture_default_str();
   cmd.add_option("-o,--output", o.output, "write the report to this file instead of standard output");
+}
+
+const char* const kGroupSymbolHelp =
+    "point group: 4mm (no primes: a non-magnetic crystal, 4mm1'), 4m'm', -3'm', or Schoenflies C4v";
+
+void add_colourless_flag(CLI::App& cmd, bool& colourless) {
+  cmd.add_flag("--colourless", colourless,
+               "read a symbol without primes as the colourless group (magnetic order, no time reversal), "
+               "not as the non-magnetic crystal G1'");
 }
 
 void emit(const OutputOptions& o, const std::string& text) { write_output(o.output, text); }
@@ -37,10 +47,10 @@ int main(int argc, char** argv) {
   } catch (const CLI::ParseError& e) {
     return app.exit(e) == 0 ? 0 : static_cast<int>(ts::ErrorKind::usage);
   } catch (const ts::Error& e) {
-    std::cerr << "tensorsieve: error: " << e.what() << "\n";
+    std::cerr << ts::printable_message(std::string("tensorsieve: error: ") + e.what()) << "\n";
     return e.exit_code();
   } catch (const std::exception& e) {
-    std::cerr << "tensorsieve: internal error: " << e.what() << "\n";
+    std::cerr << ts::printable_message(std::string("tensorsieve: internal error: ") + e.what()) << "\n";
     return static_cast<int>(ts::ErrorKind::internal);
   }
   return 0;

@@ -2,6 +2,7 @@
 // `sample` and `observe`: parent group, cut, frame, lowering steps, lattice.
 #pragma once
 
+#include "cli/commands.hpp"
 #include "cli/frame_options.hpp"
 #include "scenario/scenario.hpp"
 
@@ -20,7 +21,7 @@ struct SampleOptions {
 };
 
 inline void add_sample_options(CLI::App& cmd, SampleOptions& o, bool group_required) {
-  auto* g = cmd.add_option("group", o.sc.group, "parent point group, e.g. m-3m (taken as non-magnetic, m-3m1')");
+  auto* g = cmd.add_option("group", o.sc.group, kGroupSymbolHelp);
   if (group_required) g->required();
   cmd.add_option("--cut", o.sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
   cmd.add_option("--x", o.sc.x, "in-plane direction for sample x");
@@ -29,11 +30,12 @@ inline void add_sample_options(CLI::App& cmd, SampleOptions& o, bool group_requi
   cmd.add_option("--lower", o.lowerings,
                  "lowering step KIND:VALUE, in order: strain:[001], shear:[100],[010], polar:[110], "
                  "electric-field:[001], moment:[001], magnetic-field:[1-10], current:[100], "
-                 "magnetic-group:4'/m'm'm, tilts:a0a0c-");
+                 "subgroup:mm2 (structural), magnetic-group:4'/m'm'm (magnetic order), tilts:a0a0c-")
+      ->allow_extra_args(false);
   cmd.add_option("--a", o.a, "lattice parameter a");
   cmd.add_option("--b", o.b, "lattice parameter b");
   cmd.add_option("--c", o.c, "lattice parameter c");
-  cmd.add_flag("--colourless", o.colourless, "take a group without primes literally, not as G1'");
+  add_colourless_flag(cmd, o.colourless);
 }
 
 inline Scenario scenario_from_options(const SampleOptions& o) {

@@ -19,6 +19,8 @@ public:
         b_(cln::cl_RA(q.sqrt3_part().num()) / cln::cl_RA(q.sqrt3_part().den())) {}
   bool is_zero() const { return cln::zerop(a_) && cln::zerop(b_); }
   bool is_rational() const { return cln::zerop(b_); }
+  int sign() const; // of a + b√3, exactly
+  friend bool operator==(const BigQSqrt3& x, const BigQSqrt3& y) { return (x - y).is_zero(); }
   friend BigQSqrt3 operator+(const BigQSqrt3& x, const BigQSqrt3& y) { return {x.a_ + y.a_, x.b_ + y.b_}; }
   friend BigQSqrt3 operator-(const BigQSqrt3& x, const BigQSqrt3& y) { return {x.a_ - y.a_, x.b_ - y.b_}; }
   friend BigQSqrt3 operator*(const BigQSqrt3& x, const BigQSqrt3& y) {

@@ -95,7 +95,8 @@ private:
     }
     constexpr Wide lim = INT64_MAX;
     if (n > lim || n < -lim || d > lim)
-      fail(ErrorKind::internal, "exact arithmetic overflow (a number outgrew 64 bits)");
+      fail(ErrorKind::too_large, "exact arithmetic overflow (a number outgrew 64 bits)", "",
+           "smaller numbers: lattice parameters with fewer significant digits, smaller Miller indices");
     num_ = static_cast<std::int64_t>(n);
     den_ = static_cast<std::int64_t>(d);
   }

@@ -9,8 +9,13 @@ namespace ts {
 
 std::pair<std::int64_t, std::int64_t> square_free_split(std::int64_t n) {
   if (n <= 0) fail(ErrorKind::internal, "square root of a non-positive integer");
+  // Trial division up to 2^21 only: the cofactor left then has no prime below 2^21,
+  // and being below 2^63 it has at most two prime factors, so it is 1, p, p^2 or p*q
+  // and square-free unless it is a perfect square. This bounds the time on any input.
+  constexpr std::int64_t kTrialBound = std::int64_t(1) << 21;
   std::int64_t g = 1, s = 1;
-  for (std::int64_t p = 2; p * p <= n; ++p) {
+  std::int64_t p = 2;
+  for (; p * p <= n && p < kTrialBound; ++p) {
     int e = 0;
     while (n % p == 0) {
       n /= p;
@@ -18,6 +23,15 @@ std::pair<std::int64_t, std::int64_t> square_free_split(std::int64_t n) {
     }
     for (int k = 0; k < e / 2; ++k) g *= p;
     if (e % 2) s *= p;
+  }
+  if (n > 1 && p * p <= n) {
+    auto root = static_cast<std::int64_t>(std::llround(std::sqrt(static_cast<long double>(n))));
+    for (std::int64_t r = std::max<std::int64_t>(root - 2, 1); r <= root + 2; ++r)
+      if (static_cast<Wide>(r) * r == n) {
+        g *= r;
+        n = 1;
+        break;
+      }
   }
   return {g, s * n};
 }
@@ -38,9 +52,15 @@ Surd Surd::sqrt_of(const Rational& q) {
   if (q.sign() < 0) fail(ErrorKind::internal, "square root of a negative number");
   Surd s;
   if (q.is_zero()) return s;
-  // √(n/d) = √(n·d)/d
-  auto [g, f] = square_free_split(q.num() * q.den());
-  s.add_term(f, Rational(g, q.den()));
+  // √(n/d) = (g1/g2)·√(f1/f2) = g1/(g2·f2)·√(f1·f2), with n = g1²·f1 and d = g2²·f2;
+  // f1 and f2 are square-free and coprime, so f1·f2 is square-free.
+  auto [g1, f1] = square_free_split(q.num());
+  auto [g2, f2] = square_free_split(q.den());
+  Wide radicand = static_cast<Wide>(f1) * f2;
+  if (radicand > static_cast<Wide>(INT64_MAX))
+    fail(ErrorKind::too_large, "a square root in the frame's normalisation outgrows exact 64-bit arithmetic", "",
+         "lattice parameters with fewer significant digits (e.g. 3.905 rather than 3.90512)");
+  s.add_term(static_cast<std::int64_t>(radicand), Rational(g1) / (Rational(g2) * Rational(f2)));
   return s;
 }
 

@@ -7,6 +7,10 @@
 
 namespace ts {
 
+namespace {
+constexpr long kMaxMillerIndex = 1000;
+}
+
 std::vector<long> parse_miller_indices(const std::string& body, const std::string& raw, const std::string& where,
                                        const std::string& valid) {
   bool commas = body.find(',') != std::string::npos;
@@ -28,6 +32,11 @@ std::vector<long> parse_miller_indices(const std::string& body, const std::strin
     do {
       v = v * 10 + (body[i] - '0');
       ++i;
+      // Real planes and directions have small indices; the bound also keeps the
+      // exact arithmetic of metrics and frames built from them far from overflow.
+      if (v > kMaxMillerIndex)
+        fail(ErrorKind::too_large, "'" + raw + "': index beyond " + std::to_string(kMaxMillerIndex), where,
+             valid + ", indices of at most " + std::to_string(kMaxMillerIndex));
     } while (commas && i < body.size() && std::isdigit(static_cast<unsigned char>(body[i])));
     idx.push_back(sign * v);
   }

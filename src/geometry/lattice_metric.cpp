@@ -9,23 +9,58 @@
 
 namespace ts {
 
-Rational exact_decimal(double value) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.12g", value);
-  std::string s = buf;
-  if (s.find_first_of("eEn") != std::string::npos)
-    fail(ErrorKind::bad_file, "lattice parameter " + s + " is not a plain decimal number", "", "e.g. 3.905");
-  std::int64_t num = 0, den = 1;
-  bool neg = false, frac = false;
-  for (char ch : s) {
-    if (ch == '-') neg = true;
-    else if (ch == '.') frac = true;
-    else {
-      num = num * 10 + (ch - '0');
-      if (frac) den *= 10;
+Rational decimal_length(const std::string& text, const std::string& where, ErrorKind kind) {
+  const std::string valid = "a positive decimal length such as 3.905 (at most 9 significant digits, e.g. 4.1e0)";
+  auto refuse = [&](const std::string& why) -> Rational {
+    fail(kind, "lattice parameter '" + text + "' " + why, where, valid);
+  };
+  std::size_t i = 0;
+  std::int64_t digits = 0;
+  int significant = 0, scale = 0;
+  bool any = false, point = false;
+  for (; i < text.size(); ++i) {
+    char ch = text[i];
+    if (ch == '.' && !point) {
+      point = true;
+      continue;
     }
+    if (!std::isdigit(static_cast<unsigned char>(ch))) break;
+    any = true;
+    if (digits == 0 && ch == '0') {
+      if (point) --scale;
+      continue;
+    }
+    if (++significant > 9) refuse("has more than 9 significant digits");
+    digits = digits * 10 + (ch - '0');
+    if (point) --scale;
   }
-  return Rational(neg ? -num : num, den);
+  if (!any) refuse("is not a decimal number");
+  if (i < text.size() && (text[i] == 'e' || text[i] == 'E')) {
+    ++i;
+    int sign = 1;
+    if (i < text.size() && (text[i] == '+' || text[i] == '-')) sign = text[i++] == '-' ? -1 : 1;
+    int e = 0;
+    std::size_t from = i;
+    while (i < text.size() && std::isdigit(static_cast<unsigned char>(text[i])) && i - from < 3) e = e * 10 + (text[i++] - '0');
+    if (i == from) refuse("has an exponent without digits");
+    scale += sign * e;
+  }
+  if (i != text.size()) refuse("has unexpected text after the number");
+  if (digits == 0) refuse("is not positive");
+  if (scale < -18 || scale > 9) refuse("is out of range (exponent beyond +-9)");
+  std::int64_t pow10 = 1;
+  for (int k = 0; k < (scale < 0 ? -scale : scale); ++k) pow10 *= 10;
+  if (scale >= 0 && digits > INT64_MAX / pow10) refuse("is out of range");
+  return scale >= 0 ? Rational(digits * pow10) : Rational(digits, pow10);
+}
+
+Rational exact_decimal(double value, const std::string& where, ErrorKind kind) {
+  if (!std::isfinite(value) || value <= 0)
+    fail(kind, "lattice parameter " + std::to_string(value) + " is not a positive number", where,
+         "a positive decimal length such as 3.905");
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.9g", value);
+  return decimal_length(buf, where, kind);
 }
 
 namespace {

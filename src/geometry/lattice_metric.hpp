@@ -40,8 +40,12 @@ Vec3 metric_direction(const LatticeDirection& d, const std::string& system, Latt
 // (the inverse of metric_direction); the Cartesian components when there is none.
 std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& metric);
 
-// Exact rational from a decimal number (at most 12 significant digits are kept,
-// enough for any measured lattice parameter).
-Rational exact_decimal(double value);
+// A lattice parameter written as a decimal number ("3.905", "4.1e0", "41e-1"), read
+// exactly. Refused, with the error kind given and `where`, when it is not a plain
+// positive decimal (no hex, no trailing text, no NaN), has more than 9 significant
+// digits or an exponent beyond +-9.
+Rational decimal_length(const std::string& text, const std::string& where, ErrorKind kind);
+// The same for a number a TOML reader gave as a double (printed with 9 digits).
+Rational exact_decimal(double value, const std::string& where, ErrorKind kind);
 
 } // namespace ts

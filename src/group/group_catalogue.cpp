@@ -445,12 +445,28 @@ std::vector<std::string> GroupCatalogue::closest_symbols(const std::string& symb
 }
 
 const NamedGroup& GroupCatalogue::get(const std::string& symbol) const {
+  if (normalise_group_symbol(symbol).empty())
+    fail(ErrorKind::unknown_name, "empty point-group symbol", "",
+         "a Hermann-Mauguin symbol (e.g. 4mm, m'm2') or a Schoenflies symbol (C4v); `tensorsieve groups` lists all");
   if (const NamedGroup* g = find(symbol)) return *g;
   std::string near;
   for (const auto& s : closest_symbols(symbol)) near += (near.empty() ? "" : ", ") + s;
   fail(ErrorKind::unknown_name, "unknown point group '" + symbol + "'", "",
        "a Hermann-Mauguin symbol with primes (e.g. 4mm, 4'/m'm'm, m'm2', 3m1') or a Schoenflies symbol "
        "(C4v, C4v1', C4v(C2v)); closest: " + near + "; `tensorsieve groups` lists all");
+}
+
+const NamedGroup& GroupCatalogue::grey_of(const NamedGroup& g) const {
+  const NamedGroup* grey = find(g.crystal->name + "1'");
+  if (g.kind != MagneticKind::colourless || !grey)
+    fail(ErrorKind::internal, "no grey group for " + g.symbol);
+  return *grey;
+}
+
+const NamedGroup& GroupCatalogue::get(const std::string& symbol, PlainSymbol reading) const {
+  const NamedGroup& g = get(symbol);
+  if (g.kind == MagneticKind::colourless && reading == PlainSymbol::nonmagnetic) return grey_of(g);
+  return g;
 }
 
 } // namespace ts

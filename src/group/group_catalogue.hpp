@@ -33,6 +33,11 @@ struct CrystalClass {
 };
 
 enum class MagneticKind { colourless, grey, black_white };
+
+// How a symbol without primes and without 1' is read. A physicist writing `4mm`
+// means a non-magnetic crystal, the grey group 4mm1' (the default everywhere); the
+// colourless group 4mm (magnetic order with no primed operation) must be asked for.
+enum class PlainSymbol { nonmagnetic, colourless };
 const char* magnetic_kind_name(MagneticKind k); // "ordinary (colourless)", "grey", "black-white"
 
 // One magnetic point group in a definite setting.
@@ -66,6 +71,10 @@ public:
   // or Schoenflies symbol ("C4v", "C4v1'", "C4v(C2v)").
   const NamedGroup* find(const std::string& symbol) const;
   const NamedGroup& get(const std::string& symbol) const; // throws Error(unknown_name) with suggestions
+  // As get(), with a symbol without primes read as `reading` says.
+  const NamedGroup& get(const std::string& symbol, PlainSymbol reading) const;
+  // The grey group G1' of a colourless group G, in the same setting.
+  const NamedGroup& grey_of(const NamedGroup& colourless) const;
   std::vector<std::string> closest_symbols(const std::string& symbol, std::size_t how_many = 5) const;
 
   // Type of the group without primes, from the counts of each kind of operation.

@@ -25,4 +25,10 @@ bool frame_carries(const std::array<Vec3, 3>& rows, const PointGroup& g, const P
 // (magnetic) point group.
 Identification identify(const PointGroup& group, const GroupCatalogue& catalogue);
 
+// The symmetry elements of a group in words, for a person reading a report: one
+// entry per element, "mirror ⊥ [1-10]", "2' ∥ [001]", "4 ∥ [001]", "inversion centre",
+// directions in the lattice basis. Operations with time reversal are left out of a
+// grey group (its type symbol says 1'). At most max_items entries, then "... (N in all)".
+std::string elements_in_words(const PointGroup& g, LatticeKind lattice, std::size_t max_items = 6);
+
 } // namespace ts

@@ -264,6 +264,9 @@ Operation parse_operation(const std::string& text, LatticeKind lattice, const st
     do {
       value = value * 10 + (text[i] - '0');
       ++i;
+      // The axes of crystallographic operations have indices 0, ±1, ±2; the bound
+      // keeps long digit strings from overflowing.
+      if (value > 1000) fail(ErrorKind::too_large, at(i - 1, "a direction index beyond 1000"), where, valid);
     } while (commas && i < text.size() && std::isdigit(static_cast<unsigned char>(text[i])));
     if (count == 3) fail(ErrorKind::bad_spec, at(i - 1, "a direction has three indices"), where, valid);
     uvw[count++] = sign * value;

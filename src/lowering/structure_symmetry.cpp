@@ -31,10 +31,13 @@ std::string number_text(double x) {
   return s.str();
 }
 
-// "cell.toml:[structure], line 7, column 14" when toml++ knows the position.
+// "cell.toml:7:14", the one position format of every file error, when toml++ knows the
+// position; the section named in `where` otherwise.
 std::string locate(const std::string& where, const toml::source_region& r) {
   if (r.begin.line == 0) return where; // built in code, not read from a file
-  return where + ", line " + std::to_string(r.begin.line) + ", column " + std::to_string(r.begin.column);
+  const std::string pos = ":" + std::to_string(r.begin.line) + ":" + std::to_string(r.begin.column);
+  if (r.path && !r.path->empty()) return *r.path + pos;
+  return where + pos;
 }
 
 std::string locate(const std::string& where, const toml::node* n) { return n ? locate(where, n->source()) : where; }

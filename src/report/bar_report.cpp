@@ -285,7 +285,7 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
         }
         ++letter;
       }
-      os << grid({"bar", "current along", "angle from x", "probe", "field", "reads (per j^n, sample frame)"}, rows, f)
+      os << grid({"bar", "current along", "angle from x", "probe", "field", prose("reads (per j^n, sample frame)", f)}, rows, f)
          << "\n";
     }
   }

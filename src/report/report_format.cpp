@@ -3,6 +3,7 @@
 #include "core/error.hpp"
 
 #include <algorithm>
+#include <cstdio>
 #include <sstream>
 
 namespace ts {
@@ -80,22 +81,66 @@ std::string finish(std::string text, Format f) {
       {"±", "\\ensuremath{\\pm}"},       {"′", "'"},                         {"ᵀ", "\\ensuremath{^{T}}"},
       {"°", "\\ensuremath{^{\\circ}}"},   {"²", "\\ensuremath{^{2}}"},         {"³", "\\ensuremath{^{3}}"},        {"⁰", "\\ensuremath{^{0}}"},
       {"–", "--"},                           {"—", "---"},                       {"Å", "\\AA{}"},
-      {"…", "\\ldots{}"},                  {"−", "-"}};
+      {"…", "\\ldots{}"},                  {"−", "-"},
+      {"∝", "\\ensuremath{\\propto}"},     {"∂", "\\ensuremath{\\partial}"},  {"Δ", "\\ensuremath{\\Delta}"},
+      {"δ", "\\ensuremath{\\delta}"},      {"λ", "\\ensuremath{\\lambda}"},   {"β", "\\ensuremath{\\beta}"},
+      {"Σ", "\\ensuremath{\\Sigma}"},      {"∫", "\\ensuremath{\\int}"},      {"ħ", "\\ensuremath{\\hbar}"},
+      {"⊃", "\\ensuremath{\\supset}"},     {"≠", "\\ensuremath{\\neq}"},      {"≈", "\\ensuremath{\\approx}"},
+      {"½", "\\ensuremath{\\tfrac{1}{2}}"}, {"⁻¹", "\\ensuremath{^{-1}}"},    {"⁻", "\\ensuremath{^{-}}"},
+      {"¹", "\\ensuremath{^{1}}"},           {"°", "\\ensuremath{^{\\circ}}"}, {"□", "sq"},
+      {"§", "\\S{}"},                        {"ẑ", "\\ensuremath{\\hat{z}}"}, {"\u0302", "\\^{}"},
+      {"ê", "\\^{e}"},                       {"á", "\\'{a}"},                   {"é", "\\'{e}"},
+      {"ý", "\\'{y}"},                       {"ü", "\\\"{u}"},                  {"ö", "\\\"{o}"},
+      {"û", "\\^{u}"},                       {"Š", "\\v{S}"},                    {"Ž", "\\v{Z}"}};
   for (const auto& [from, to] : map) {
     const std::string a = from, b = to;
     for (std::size_t p = text.find(a); p != std::string::npos; p = text.find(a, p + b.size())) text.replace(p, a.size(), b);
   }
-  return text;
+  // pdflatex reads ASCII and commands only: any character not in the table above is
+  // written as its code point, readable and safe, rather than breaking the document.
+  std::string ascii;
+  for (std::size_t i = 0; i < text.size();) {
+    unsigned char c = static_cast<unsigned char>(text[i]);
+    if (c < 0x80) {
+      ascii += text[i++];
+      continue;
+    }
+    std::size_t len = (c >> 5) == 0x6 ? 2 : (c >> 4) == 0xE ? 3 : (c >> 3) == 0x1E ? 4 : 1;
+    unsigned long cp = len == 1 ? c : c & (0xFF >> (len + 1));
+    for (std::size_t k = 1; k < len && i + k < text.size(); ++k) cp = (cp << 6) | (text[i + k] & 0x3F);
+    char buf[16];
+    std::snprintf(buf, sizeof buf, "[U+%04lX]", cp);
+    ascii += buf;
+    i += len;
+  }
+  return ascii;
 }
+
+namespace {
+// A table cell in LaTeX: writers put commands (\texttt{...}, $...$) into cells, so only
+// the characters that are still bare in text mode are escaped (x_std, g_i, 50%).
+std::string latex_cell(const std::string& s) {
+  std::string out;
+  bool math = false;
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    const char c = s[i];
+    const bool escaped = i > 0 && s[i - 1] == '\\';
+    if (c == '$' && !escaped) math = !math;
+    if (!math && !escaped && (c == '_' || c == '%' || c == '#' || c == '&')) out += '\\';
+    out += c;
+  }
+  return out;
+}
+} // namespace
 
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows, Format f) {
   std::ostringstream os;
   if (f == Format::latex) {
     os << "\\begin{tabular}{" << std::string(header.size(), 'l') << "}\n\\hline\n";
-    for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << header[i];
+    for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << latex_cell(header[i]);
     os << " \\\\\n\\hline\n";
     for (const auto& r : rows) {
-      for (std::size_t i = 0; i < r.size(); ++i) os << (i ? " & " : "") << r[i];
+      for (std::size_t i = 0; i < r.size(); ++i) os << (i ? " & " : "") << latex_cell(r[i]);
       os << " \\\\\n";
     }
     os << "\\hline\n\\end{tabular}\n";

@@ -21,9 +21,9 @@ std::string heading(const std::string& s, Format f, int level = 2) {
   return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
 }
 
-std::string group_name(const ChainStep& st) {
-  return st.sample_symbol.empty() ? st.id.type->symbol : st.sample_symbol;
-}
+// What a person reads: the type with its elements in words for a non-standard setting
+// (JSON keeps the setting symbol itself, sample_frame_symbol).
+std::string group_name(const ChainStep& st) { return st.readable_symbol; }
 
 std::string standard_axes(const ChainStep& st, LatticeKind lattice) {
   std::string out;
@@ -45,7 +45,7 @@ GroupContext context_of(const ChainStep& st, LatticeKind lattice) {
   c.kind = magnetic_kind_name(st.id.type->kind);
   c.order = st.group.order();
   c.setting = st.sample_symbol.empty() ? "standard setting at " + standard_axes(st, lattice) + " (crystal axes)"
-                                       : st.sample_symbol + " in the sample frame";
+                                       : group_name(st) + " in the sample frame";
   for (const auto& op : st.group.operations()) c.operations.push_back(op.symbol(lattice));
   return c;
 }
@@ -68,8 +68,9 @@ std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form
   for (int r = 0; r < form.symmetry->size(); ++r) {
     int c = form.symmetry->rep_code(r);
     if (t.is_zero(c)) continue;
-    parts.push_back(symbol_text(form.component_name(c), style) + " = " +
-                    combination_text(params ? *params : form, t.components[c], style));
+    std::string relation = symbol_text(form.component_name(c), style) + " = " +
+                           combination_text(params ? *params : form, t.components[c], style);
+    parts.push_back(style == TextStyle::latex ? "$" + relation + "$" : relation); // math mode inside a table cell
   }
   return parts.empty() ? "all components vanish" : join(parts, "; ");
 }
@@ -203,6 +204,27 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   }
   os << "\n";
 
+  // Many responses at once (--response all, a family): the verdicts first, one line each.
+  if (r.parts.size() > 3 && r.chain.size() > 1) {
+    const std::size_t last = r.chain.size() - 1;
+    os << heading("summary: what the last step (" + r.chain[last].label + ") switched on", f);
+    std::vector<std::string> on, allowed, forbidden;
+    for (const auto& p : r.parts) {
+      const std::string name = (p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label);
+      const int before = p.counts[last - 1], after = p.counts[last];
+      if (before == 0 && after > 0) on.push_back(name + " (" + std::to_string(after) + " independent)");
+      else (after > 0 ? allowed : forbidden).push_back(name);
+    }
+    const char* bullet = f == Format::markdown ? "- " : "  ";
+    const char* end = f == Format::latex ? "\\\\\n" : "\n";
+    if (on.empty()) os << bullet << "nothing new: every part allowed now was allowed before" << end;
+    for (const auto& n : on) os << bullet << "switched on: " << n << end;
+    os << bullet << "allowed before and after: " << (allowed.empty() ? "none" : std::to_string(allowed.size()) + " parts")
+       << end << bullet << "forbidden after the last step: "
+       << (forbidden.empty() ? "none" : std::to_string(forbidden.size()) + " parts") << end
+       << bullet << "the details of every part follow" << end << "\n";
+  }
+
   for (std::size_t k = 0; k < r.parts.size(); ++k) {
     const auto& p = r.parts[k];
     os << heading(p.response_id.empty() ? "tensor " + p.spec.canonical_text()
@@ -250,13 +272,29 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       os << heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
                         group_name(r.chain[d.from_step]) + " (spontaneous steps only; applied fields form no domains)",
                     f, 3);
+      // A rank-6 tensor over 96 variants would print a gigabyte: a person reads the
+      // first variants, the rest (and every component) is in --format json.
+      constexpr std::size_t kShownVariants = 8, kShownCharacters = 2000;
+      auto capped = [&](std::string text) {
+        if (text.size() <= kShownCharacters) return text;
+        // cut between two relations, so a LaTeX $...$ pair stays whole
+        std::size_t cut = text.rfind("; ", kShownCharacters);
+        if (cut == std::string::npos || cut == 0) cut = kShownCharacters;
+        while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80) --cut;
+        return text.substr(0, cut) + " ... (" + std::to_string(text.size() - cut) +
+               " more characters; --format json lists every component)";
+      };
       std::vector<std::vector<std::string>> vrows;
-      for (std::size_t v = 0; v < d.analysis.variants.size(); ++v)
+      const std::size_t shown = std::min(d.analysis.variants.size(), kShownVariants);
+      for (std::size_t v = 0; v < shown; ++v)
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                         tensor_components_text(d.analysis.variants[v].tensor, d.form, f)});
+                         capped(tensor_components_text(d.analysis.variants[v].tensor, d.form, f))});
       os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, vrows, f);
+      if (shown < d.analysis.variants.size())
+        os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
+           << " are not printed here; --format json lists them all\n";
       os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
-         << (f == Format::markdown ? "** " : " ") << tensor_components_text(d.analysis.average, d.form, f) << "\n\n";
+         << (f == Format::markdown ? "** " : " ") << capped(tensor_components_text(d.analysis.average, d.form, f)) << "\n\n";
       for (const auto& t : d.in_field) {
         const std::string field_symbol = t.expansion.name.substr(p.spec.name.size());
         os << heading("every variant in the lab-frame " + t.field.label + ": the part linear in the field, per unit " +
@@ -264,12 +302,13 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
                           std::to_string(t.form.independent()) + " independent in " + dg + ")",
                       f, 3);
         std::vector<std::vector<std::string>> frows;
-        for (std::size_t v = 0; v < t.variants.size(); ++v)
+        for (std::size_t v = 0; v < t.variants.size() && v < shown; ++v)
           frows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                           tensor_components_text(t.variants[v], d.form, f, &t.form)});
+                           capped(tensor_components_text(t.variants[v], d.form, f, &t.form))});
         os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, frows, f);
         os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
-           << (f == Format::markdown ? "** " : " ") << tensor_components_text(t.average, d.form, f, &t.form) << "\n\n";
+           << (f == Format::markdown ? "** " : " ") << capped(tensor_components_text(t.average, d.form, f, &t.form))
+           << "\n\n";
       }
     }
   }

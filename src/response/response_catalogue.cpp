@@ -339,7 +339,52 @@ std::unique_ptr<ResponseCatalogue> ResponseCatalogue::load(const std::string& pa
     }
     cat->responses_.push_back(std::move(r));
   }
+  const std::string families = (std::filesystem::path(path).parent_path() / "families.toml").string();
+  if (std::filesystem::is_regular_file(families, ec)) cat->load_families(families);
   return cat;
+}
+
+void ResponseCatalogue::load_families(const std::string& path) {
+  toml::table root;
+  try {
+    root = toml::parse_file(path);
+  } catch (const toml::parse_error& e) {
+    fail(ErrorKind::bad_file, std::string(e.description()), position(path, e.source()),
+         "TOML arrays of response ids, FAMILY = [\"id\", ...]");
+  }
+  std::map<std::string, std::string> placed;
+  for (const auto& [k, v] : root) {
+    const std::string name(k.str());
+    const toml::array* ids = v.as_array();
+    if (!ids || name == "all")
+      fail(ErrorKind::bad_file, "family '" + name + "' must be an array of response ids (and not be called all)",
+           position(path, v.source()), "FAMILY = [\"id\", ...]");
+    for (const auto& el : *ids) {
+      auto id = el.value<std::string>();
+      if (!id || !find(*id) || find(*id)->id != *id)
+        fail(ErrorKind::bad_file, "family '" + name + "': not a catalogue id", position(path, el.source()),
+             "ids from `tensorsieve responses`");
+      if (!placed.emplace(*id, name).second)
+        fail(ErrorKind::bad_file, "response '" + *id + "' is in two families", position(path, el.source()),
+             "each id in one family");
+      families_[name].push_back(*id);
+    }
+  }
+}
+
+std::vector<std::string> ResponseCatalogue::expand(const std::string& id_family_or_alias) const {
+  std::vector<std::string> out;
+  const std::string key = normalise_response_key(id_family_or_alias);
+  if (key == "all") {
+    for (const auto& r : responses_) out.push_back(r.id);
+    return out;
+  }
+  if (auto it = families_.find(key); it != families_.end()) {
+    for (const auto& r : responses_)
+      if (std::find(it->second.begin(), it->second.end(), r.id) != it->second.end()) out.push_back(r.id);
+    return out;
+  }
+  return {get(id_family_or_alias).id};
 }
 
 const ResponseCatalogue& ResponseCatalogue::builtin() {

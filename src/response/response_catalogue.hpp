@@ -12,6 +12,7 @@
 
 #include <memory>
 #include <optional>
+#include <map>
 #include <string>
 #include <vector>
 
@@ -59,9 +60,15 @@ public:
   // Throws Error(unknown_name) listing the closest ids.
   const Response& get(const std::string& id_or_alias) const;
   std::vector<std::string> closest_ids(const std::string& id_or_alias, std::size_t how_many = 5) const;
+  // "all", a family of families.toml ("transport", "optics", "equilibrium") or one id or
+  // alias: the catalogue ids it stands for, in catalogue order.
+  std::vector<std::string> expand(const std::string& id_family_or_alias) const;
+  const std::map<std::string, std::vector<std::string>>& families() const { return families_; }
 
 private:
+  void load_families(const std::string& path);
   std::vector<Response> responses_;
+  std::map<std::string, std::vector<std::string>> families_;
   std::string path_;
 };
 

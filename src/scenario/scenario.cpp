@@ -1,11 +1,17 @@
 #include "scenario/scenario.hpp"
 
 #include "core/error.hpp"
+#include "group/group_catalogue.hpp"
 #include "lowering/structure_file.hpp"
+#include "response/response_catalogue.hpp"
+#include "tensor/tensor_spec.hpp"
 
 #include <toml++/toml.h>
 
+#include <cmath>
 #include <filesystem>
+#include <fstream>
+#include <sstream>
 #include <set>
 
 namespace ts {
@@ -13,7 +19,7 @@ namespace ts {
 namespace {
 
 const char* kinds_help =
-    "strain, shear, polar, electric-field, moment, magnetic-field, current, magnetic-group, tilts";
+    "strain, shear, polar, electric-field, moment, magnetic-field, current, magnetic-group, subgroup, tilts";
 
 std::string at(const std::string& file, const toml::source_region& s) {
   if (s.begin.line == 0) return file; // a table built in memory (a Python dict) has no lines
@@ -61,10 +67,25 @@ std::optional<Rational> get_length(const toml::table& t, const char* key, const 
   auto node = t.get(key);
   if (!node) return std::nullopt;
   auto v = node->value<double>();
-  if (!v || *v <= 0)
+  if (!v || !std::isfinite(*v) || *v <= 0)
     fail(ErrorKind::bad_file, std::string("lattice parameter '") + key + "' must be a positive number",
          at(file, node->source()), "a length in Angstrom, e.g. 3.905");
-  return exact_decimal(*v);
+  return exact_decimal(*v, at(file, node->source()), ErrorKind::bad_file);
+}
+
+// Check a value where it is read, so its error names the file, line and column.
+template <typename Check>
+void check_at(const std::string& where, Check check) {
+  try {
+    check();
+  } catch (const Error& e) {
+    fail(e.kind(), e.problem(), e.location().empty() ? where : where + ": " + e.location(), e.valid());
+  }
+}
+
+std::string position_of(const toml::table& t, const char* key, const std::string& file) {
+  auto node = t.get(key);
+  return node ? at(file, node->source()) : file;
 }
 
 } // namespace
@@ -79,12 +100,13 @@ const char* lowering_kind_name(LoweringKind k) {
   case LoweringKind::magnetic_field: return "magnetic-field";
   case LoweringKind::current: return "current";
   case LoweringKind::magnetic_group: return "magnetic-group";
+  case LoweringKind::subgroup: return "subgroup";
   case LoweringKind::tilts: return "tilts";
   }
   return "";
 }
 
-LoweringKind parse_lowering_kind(const std::string& text, const std::string& where) {
+LoweringKind parse_lowering_kind(const std::string& text, const std::string& where, ErrorKind bad_value) {
   static const std::pair<const char*, LoweringKind> names[] = {
       {"strain", LoweringKind::strain},           {"distortion", LoweringKind::strain},
       {"shear", LoweringKind::shear},             {"polar", LoweringKind::polar},
@@ -93,22 +115,24 @@ LoweringKind parse_lowering_kind(const std::string& text, const std::string& whe
       {"moment", LoweringKind::moment},           {"magnetization", LoweringKind::moment},
       {"magnetic-field", LoweringKind::magnetic_field}, {"field", LoweringKind::magnetic_field},
       {"current", LoweringKind::current},         {"magnetic-group", LoweringKind::magnetic_group},
-      {"order", LoweringKind::magnetic_group},    {"tilts", LoweringKind::tilts}};
+      {"order", LoweringKind::magnetic_group},    {"subgroup", LoweringKind::subgroup},
+      {"structural-subgroup", LoweringKind::subgroup}, {"tilts", LoweringKind::tilts}};
   for (const auto& [n, k] : names)
     if (text == n) return k;
-  fail(ErrorKind::bad_file, "unknown lowering kind '" + text + "'", where, kinds_help);
+  fail(bad_value, "unknown lowering kind '" + text + "'", where, kinds_help);
 }
 
 LoweringStep parse_lowering_option(const std::string& text, const std::string& where) {
   std::size_t colon = text.find(':');
   if (colon == std::string::npos)
     fail(ErrorKind::usage, "'" + text + "' is not KIND:VALUE", where,
-         "e.g. strain:[001], field:[1-10], shear:[100],[010], magnetic-group:4'/m'm'm, tilts:a0a0c-");
+         "e.g. strain:[001], field:[1-10], shear:[100],[010], subgroup:mm2, magnetic-group:4'/m'm'm, tilts:a0a0c-");
   LoweringStep s;
-  s.kind = parse_lowering_kind(text.substr(0, colon), where);
+  s.bad_value = ErrorKind::usage;
+  s.kind = parse_lowering_kind(text.substr(0, colon), where, ErrorKind::usage);
   std::string value = text.substr(colon + 1);
   s.where = where;
-  if (s.kind == LoweringKind::magnetic_group || s.kind == LoweringKind::tilts) {
+  if (s.kind == LoweringKind::magnetic_group || s.kind == LoweringKind::subgroup || s.kind == LoweringKind::tilts) {
     s.value = value;
   } else if (s.kind == LoweringKind::shear) {
     std::size_t comma = value.find("],");
@@ -234,7 +258,7 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
     if (slash == std::string::npos) {
       double v = std::stod(text, &used);
       if (used != text.size()) throw std::invalid_argument(text);
-      r = exact_decimal(v);
+      r = exact_decimal(v, where, ErrorKind::usage);
     } else {
       long long p = std::stoll(text.substr(0, slash), &used);
       if (used != slash) throw std::invalid_argument(text);
@@ -251,9 +275,25 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
 }
 
 Scenario load_scenario(const std::string& path) {
+  std::error_code ec;
+  auto status = std::filesystem::status(path, ec);
+  if (ec || !std::filesystem::exists(status))
+    fail(ErrorKind::bad_file, "no such file", path, "the path of a scenario TOML file (docs/scenarios.md)");
+  if (!std::filesystem::is_regular_file(status))
+    fail(ErrorKind::bad_file, std::filesystem::is_directory(status) ? "is a directory, not a scenario file"
+                                                                     : "is not a regular file",
+         path, "the path of a scenario TOML file (docs/scenarios.md)");
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  if (!in) fail(ErrorKind::bad_file, "cannot read the file", path, "a readable scenario TOML file");
+  return parse_scenario(text.str(), path);
+}
+
+Scenario parse_scenario(const std::string& text, const std::string& path) {
   toml::table root;
   try {
-    root = toml::parse_file(path);
+    root = toml::parse(text, path);
   } catch (const toml::parse_error& e) {
     fail(ErrorKind::bad_file, std::string(e.description()), at(path, e.source()),
          "a TOML scenario file (schema in docs/scenarios.md)");
@@ -271,8 +311,10 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
   check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy", "symprec"}, path, "[crystal]");
   sc.group = get_string(*crystal, "group", path, false, "a point-group symbol such as m-3m or 4/mmm1'");
+  if (crystal->get("group"))
+    check_at(position_of(*crystal, "group", path), [&] { GroupCatalogue::builtin().get(sc.group); });
   if (auto nm = crystal->get("nonmagnetic")) {
-    auto b = nm->value<bool>();
+    auto b = nm->is_boolean() ? nm->value<bool>() : std::nullopt;
     if (!b) fail(ErrorKind::bad_file, "'nonmagnetic' must be true or false", at(path, nm->source()));
     sc.assume_nonmagnetic = *b;
   }
@@ -335,13 +377,16 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
       check_keys(*t, {"kind", "along", "and", "group", "glazer", "label"}, path, "[[lowering]]");
       LoweringStep s;
       s.where = at(path, t->source());
-      s.kind = parse_lowering_kind(get_string(*t, "kind", path, true, kinds_help), s.where);
+      s.kind = parse_lowering_kind(get_string(*t, "kind", path, true, kinds_help), s.where, ErrorKind::bad_file);
       s.along = get_string(*t, "along", path, false, "a direction such as \"[001]\"");
       s.second = get_string(*t, "and", path, false, "a direction such as \"[010]\"");
       s.label = get_string(*t, "label", path, false, "a string");
       if (s.kind == LoweringKind::magnetic_group) s.value = get_string(*t, "group", path, true, "a magnetic point group symbol in the crystal frame");
+      if (s.kind == LoweringKind::subgroup)
+        s.value = get_string(*t, "group", path, true, "a point group symbol without primes in the crystal frame");
       if (s.kind == LoweringKind::tilts) s.value = get_string(*t, "glazer", path, true, "a Glazer symbol such as \"a0a0c-\"");
-      bool vector_like = s.kind != LoweringKind::magnetic_group && s.kind != LoweringKind::tilts;
+      bool vector_like = s.kind != LoweringKind::magnetic_group && s.kind != LoweringKind::subgroup &&
+                         s.kind != LoweringKind::tilts;
       if (vector_like && s.along.empty())
         fail(ErrorKind::bad_file, std::string("a ") + lowering_kind_name(s.kind) + " step needs 'along'", s.where,
              "along = \"[001]\"");
@@ -354,10 +399,13 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   sc.tensors = get_strings(root, "tensors", path);
   read_bars(root, path, sc);
   read_layouts(root, path, sc);
+  for (const auto& id : sc.responses)
+    check_at(position_of(root, "responses", path), [&] { ResponseCatalogue::builtin().expand(id); });
+  for (const auto& t : sc.tensors) check_at(position_of(root, "tensors", path), [&] { parse_tensor_spec(t); });
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");
     if (auto d = rep->get("domains")) {
-      auto b = d->value<bool>();
+      auto b = d->is_boolean() ? d->value<bool>() : std::nullopt;
       if (!b) fail(ErrorKind::bad_file, "'domains' must be true or false", at(path, d->source()));
       sc.domains = *b;
     }

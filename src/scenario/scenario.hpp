@@ -6,6 +6,7 @@
 // there is one path through the program.
 #pragma once
 
+#include "core/error.hpp"
 #include "geometry/lattice_metric.hpp"
 #include "lowering/structure_symmetry.hpp"
 
@@ -17,15 +18,18 @@
 
 namespace ts {
 
-enum class LoweringKind { strain, shear, polar, electric_field, moment, magnetic_field, current, magnetic_group, tilts };
+enum class LoweringKind {
+  strain, shear, polar, electric_field, moment, magnetic_field, current, magnetic_group, subgroup, tilts
+};
 
 struct LoweringStep {
   LoweringKind kind = LoweringKind::strain;
   std::string along;  // direction [uvw] (vectors, strain), first direction of a shear
   std::string second; // second direction of a shear
-  std::string value;  // group symbol (magnetic_group) or Glazer symbol (tilts)
+  std::string value;  // group symbol (magnetic_group, subgroup) or Glazer symbol (tilts)
   std::string label;  // optional words for the report
   std::string where;  // file:line or option, for messages
+  ErrorKind bad_value = ErrorKind::bad_file; // exit kind of a bad value: usage for an option, bad_file in a file
 };
 
 // A Hall bar of the scenario (docs/hall-bars.md): its current direction,
@@ -91,7 +95,9 @@ Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...)
 // The same from a table already in memory (e.g. built from a Python dict);
 // `path` names it in messages, and relative structure files are read from its folder.
 Scenario scenario_from_table(const toml::table& root, const std::string& path);
-LoweringKind parse_lowering_kind(const std::string& text, const std::string& where);
+// The same from the text of a file; `path` names it in messages.
+Scenario parse_scenario(const std::string& text, const std::string& path);
+LoweringKind parse_lowering_kind(const std::string& text, const std::string& where, ErrorKind bad_value);
 const char* lowering_kind_name(LoweringKind k);
 // "strain:[001]", "field:[1-10]", "shear:[100],[010]", "magnetic-group:4'/m'm'm", "tilts:a0a0c-"
 LoweringStep parse_lowering_option(const std::string& text, const std::string& where);

@@ -38,14 +38,15 @@ struct Parent {
 Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
   const auto& cat = GroupCatalogue::builtin();
   Parent p;
-  if (!sc.group.empty()) {
-    const NamedGroup& g = cat.get(sc.group);
+  if (!sc.structure) {
+    const NamedGroup& literal = cat.get(sc.group);
+    const NamedGroup& g =
+        cat.get(sc.group, sc.assume_nonmagnetic ? PlainSymbol::nonmagnetic : PlainSymbol::colourless);
     p.group = g.group;
     p.system = g.crystal->system;
-    if (sc.assume_nonmagnetic && g.kind == MagneticKind::colourless) {
-      p.group = g.group.with_time_reversal();
-      p.note = g.symbol + " taken as non-magnetic: " + g.symbol + "1' (set nonmagnetic = false for a colourless magnetic group)";
-    }
+    if (&g != &literal)
+      p.note = literal.symbol + " taken as non-magnetic: " + g.symbol +
+               " (--colourless or nonmagnetic = false for the colourless magnetic group)";
     return p;
   }
   const CrystalStructure& st = *sc.structure;
@@ -76,7 +77,7 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
     auto length = [&](int r) {
       double s = 0;
       for (double v : st.lattice[r]) s += v * v;
-      return exact_decimal(std::sqrt(s));
+      return exact_decimal(std::sqrt(s), st.where, ErrorKind::bad_file);
     };
     metric.a = length(0);
     metric.b = length(1);
@@ -89,6 +90,8 @@ Vec3 step_direction(const std::string& text, const std::string& system, LatticeK
                     const std::string& where) {
   return metric_direction(parse_direction(text, where), system, lattice, m, where);
 }
+
+std::string group_label(const ChainStep& st) { return st.sample_symbol.empty() ? st.id.type->symbol : st.sample_symbol; }
 
 PointGroup tilt_group(const std::string& glazer, const PointGroup& current, const std::string& where) {
   TiltedPerovskite tp = build_tilted_perovskite(parse_glazer_symbol(glazer));
@@ -117,6 +120,7 @@ std::string step_label(const LoweringStep& s) {
   case LoweringKind::magnetic_field: base = "magnetic field ∥ " + s.along; break;
   case LoweringKind::current: base = "current ∥ " + s.along; break;
   case LoweringKind::magnetic_group: base = "magnetic order " + s.value; break;
+  case LoweringKind::subgroup: base = "structural subgroup " + s.value; break;
   case LoweringKind::tilts: base = "octahedral tilts " + s.value; break;
   }
   return s.label.empty() ? base : s.label + " (" + base + ")";
@@ -150,6 +154,19 @@ PointGroup lower(const PointGroup& g, const LoweringStep& s, const std::string& 
            "a magnetic point group of the same crystal family, written in the crystal's axes");
     *quantity = "intersection with the magnetic point group " + order.symbol + " (crystal axes)";
     return g.intersection(order.group);
+  }
+  case LoweringKind::subgroup: {
+    // A twin, a distortion or a superstructure: operations of space, no time reversal
+    // of its own. In a non-magnetic crystal each kept operation keeps its partner with 1'.
+    const NamedGroup& h = GroupCatalogue::builtin().get(s.value);
+    if (h.kind != MagneticKind::colourless)
+      fail(s.bad_value, "structural subgroup " + s.value + " has primed operations", s.where,
+           "a point group symbol without primes or 1' (mm2, 4mm, ...); magnetic order is magnetic-group:" + s.value);
+    if (h.group.lattice() != g.lattice())
+      fail(ErrorKind::bad_geometry, "subgroup " + s.value + " is given in other axes than the crystal", s.where,
+           "a point group of the same crystal family, written in the crystal's axes");
+    *quantity = "intersection with the structural point group " + h.symbol + " (crystal axes; time reversal as before)";
+    return g.intersection(h.group.with_time_reversal());
   }
   case LoweringKind::tilts:
     *quantity = "intersection with the point group of the tilted perovskite (spglib)";
@@ -222,6 +239,13 @@ ScenarioResult run_scenario(const Scenario& sc) {
     st.quantity = quantity;
     st.id = identify(g, cat);
     st.sample_symbol = sample_symbol(g, st.id, res.frame);
+    // A setting written with 1 positions (m11, m111', 112/m) says little to a reader:
+    // print its type and its elements instead. Named variants such as mm'2' stay.
+    std::string plain = st.sample_symbol;
+    if (g.is_grey() && plain.size() > 2) plain.resize(plain.size() - 2);
+    const bool cryptic = !st.sample_symbol.empty() && st.sample_symbol != st.id.type->symbol &&
+                         plain.find('1') != std::string::npos;
+    st.readable_symbol = cryptic ? st.id.type->symbol + " (" + elements_in_words(g, lattice) + ")" : group_label(st);
     if (!res.chain.empty())
       for (const auto& op : res.chain.back().group.operations())
         if (!g.contains(op)) st.lost.push_back(op.symbol(lattice));
@@ -242,7 +266,11 @@ ScenarioResult run_scenario(const Scenario& sc) {
   }
 
   const auto& responses = ResponseCatalogue::builtin();
-  for (const auto& id : sc.responses) {
+  std::vector<std::string> ids; // "all" and families expanded, each response once
+  for (const auto& asked : sc.responses)
+    for (const auto& id : responses.expand(asked))
+      if (std::find(ids.begin(), ids.end(), id) == ids.end()) ids.push_back(id);
+  for (const auto& id : ids) {
     const Response& r = responses.get(id);
     for (const auto& part : r.parts) {
       PartForms pf;

@@ -23,6 +23,7 @@ struct ChainStep {
   PointGroup group;         // in the crystal frame
   Identification id;
   std::string sample_symbol; // HM symbol of a tabulated setting matching the sample frame, else empty
+  std::string readable_symbol; // for people: the type, and for a non-standard setting its elements in words
   std::vector<std::string> lost; // operations the step removed (crystal-frame symbols)
 };
 

@@ -241,7 +241,7 @@ std::vector<int> rref(std::vector<Row>& rows, int ncols) {
   try {
     return rref_in(rows, ncols);
   } catch (const Error& e) {
-    if (e.kind() != ErrorKind::internal) throw;
+    if (e.kind() != ErrorKind::too_large) throw; // a 64-bit overflow: redo on big rationals
   }
   std::vector<std::vector<BigQSqrt3>> big;
   for (const auto& row : copy) {
@@ -420,18 +420,40 @@ AllowedForm build_form(const TensorSpec& spec, std::shared_ptr<const IndexSymmet
   std::vector<int> pivots = rref_blocks(rows, n);
   form.parameter_components = pivots;
   form.components.assign(n, {});
-  auto q_of = [&](int red) {
-    Rational q(1);
-    for (int d : sym->digits(sym->rep_code(red))) q *= len2[d];
-    return q;
+  // How often each axis occurs in the indices of a component.
+  auto axis_counts = [&](int red) {
+    std::array<int, 3> k{};
+    for (int d : sym->digits(sym->rep_code(red))) ++k[d];
+    return k;
   };
   bool unit = len2[0] == Rational(1) && len2[1] == Rational(1) && len2[2] == Rational(1);
+  std::array<Surd, 3> root_len2;
+  if (!unit)
+    for (int d = 0; d < 3; ++d) root_len2[d] = Surd::sqrt_of(len2[d]);
+  // Normalising the axes multiplies a component by sqrt(q_pivot / q_c), q the product of
+  // the squared lengths of its axes. Measured lattice parameters make those products
+  // outgrow 64 bits (a (101) normal of a = 3.91, c = 4.1 has |n|^2 ~ 5e10), so the even
+  // powers are taken on big rationals and only the odd square roots stay as surds.
+  auto normalised = [&](const QSqrt3& entry, const std::array<int, 3>& kj, const std::array<int, 3>& kc) {
+    BigQSqrt3 scaled(entry);
+    std::vector<int> odd;
+    for (int d = 0; d < 3; ++d) {
+      int e = kj[d] - kc[d];
+      int half = e >= 0 ? e / 2 : -((-e + 1) / 2); // floor(e / 2)
+      cln::cl_RA l(cln::cl_RA(len2[d].num()) / cln::cl_RA(len2[d].den()));
+      for (int i = 0; i < (half >= 0 ? half : -half); ++i)
+        scaled = half >= 0 ? scaled * BigQSqrt3(l, 0) : scaled / BigQSqrt3(l, 0);
+      if (e - 2 * half) odd.push_back(d);
+    }
+    Surd coef(scaled.to_small());
+    for (int d : odd) coef = coef * root_len2[d];
+    return coef;
+  };
   for (std::size_t j = 0; j < rows.size(); ++j) {
-    Rational qj = unit ? Rational(1) : q_of(pivots[j]);
+    const std::array<int, 3> kj = axis_counts(pivots[j]);
     for (int c = 0; c < n; ++c) {
       if (rows[j][c].is_zero()) continue;
-      Surd coef(rows[j][c]);
-      if (!unit) coef = coef * Surd::sqrt_of(qj / q_of(c));
+      Surd coef = unit ? Surd(rows[j][c]) : normalised(rows[j][c], kj, axis_counts(c));
       form.components[c].push_back({static_cast<int>(j), coef});
     }
   }

@@ -59,6 +59,8 @@ void add_block_symmetry(TensorSpec& spec, const std::vector<std::vector<int>>& b
 struct JahnParser {
   const std::string& text;
   std::size_t pos = 0;
+  int depth = 0;
+  static constexpr int kMaxNesting = 3;
   TensorSpec spec;
 
   struct Block {
@@ -106,9 +108,17 @@ struct JahnParser {
       return b;
     }
     if (c == '[' || c == '{') {
+      // Each bracket at least doubles the rank, so three levels already pass rank 6;
+      // the bound keeps hostile input such as [[[[...V...]]]] off the stack.
+      if (++depth > kMaxNesting)
+        fail(ErrorKind::too_large,
+             "tensor spec '" + text + "' nests brackets deeper than " + std::to_string(kMaxNesting) +
+                 " levels, beyond rank " + std::to_string(max_rank),
+             "", "a tensor of rank at most 6, such as [[V2]2] or V[V2]");
       std::size_t open = pos++;
       char close = c == '[' ? ']' : '}';
       Block base = factor();
+      --depth;
       int k = exponent();
       if (k < 2) spec_error(text, pos, std::string("expected a power of 2 or more inside '") + c + "'");
       if (peek() != close) spec_error(text, pos, std::string("expected '") + close + "' to close '" + c + "' at " + std::to_string(open + 1));
@@ -163,7 +173,7 @@ std::string trim(const std::string& s) {
 } // namespace
 
 TensorSpec parse_jahn_symbol(const std::string& text) {
-  JahnParser p{text, 0, TensorSpec{}};
+  JahnParser p{text, 0, 0, TensorSpec{}};
   return p.run();
 }
 
