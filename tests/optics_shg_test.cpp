@@ -2,6 +2,7 @@
 // against published rotational-anisotropy forms and against the channel
 // formulas derived below, exactly, at every multiple of 15° of the angle of
 // incidence θ and the sample azimuth φ.
+#include "geometry/optics_expression.hpp"
 #include "geometry/optics_geometry.hpp"
 #include "scenario/scenario_run.hpp"
 #include "support/cli_run.hpp"
@@ -132,6 +133,19 @@ TEST_CASE("3m face: the four channels and the threefold pattern (Tom, Heinz and 
   CHECK(amplitude_harmonics(ed.channels[3]) == std::set<std::string>{"cos(3phi)"});
   // sin²3φ = (1 - cos 6φ)/2: the intensity holds the constant and 6φ only.
   CHECK(texts(product_harmonics(ed.channels[0], ed.channels[0])) == std::set<std::string>{"1", "cos(6phi)"});
+
+  // The GiNaC form of the amplitudes: with the parameter named after chi_xxy = -c,
+  // PS = chi_xxy cos²θ cos 3φ and SS = -chi_xxy cos 3φ, equal as expressions.
+  {
+    const ShgSource& src = r.shg[0].sources.at(0);
+    const AllowedForm& form = r.parts[src.part].forms.back();
+    ExpressionSymbols sy;
+    const GiNaC::ex ps = optical_amplitude_ex(optical_terms(src.channels[1]), form, sy);
+    const GiNaC::ex ss = optical_amplitude_ex(optical_terms(src.channels[3]), form, sy);
+    const GiNaC::ex c = -sy.parameter("chi_xxy"), theta = sy.named("theta", "\\theta"), phi = sy.angle(Angle::phi);
+    CHECK((ps - (-c * GiNaC::pow(GiNaC::cos(theta), 2) * GiNaC::cos(3 * phi))).expand().is_zero());
+    CHECK((ss - c * GiNaC::cos(3 * phi)).expand().is_zero());
+  }
 
   ScenarioResult o = run_scenario(face("m-3m", "(111)", {"electric-dipole-shg"}, "45"));
   CHECK(amplitude_harmonics(o.shg[0].sources.at(0).channels[0]) == std::set<std::string>{"1", "sin(3phi)"});
