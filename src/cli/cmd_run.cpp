@@ -1,5 +1,6 @@
 // tensorsieve run SCENARIO.toml | sample GROUP --cut ... --lower KIND:VALUE ...
 #include "cli/commands.hpp"
+#include "cli/figure_options.hpp"
 #include "cli/sample_options.hpp"
 #include "core/error.hpp"
 #include "lowering/structure_file.hpp"
@@ -13,27 +14,31 @@ namespace ts::cli {
 void setup_run(CLI::App& app) {
   struct Opts {
     OutputOptions out;
+    FigureOptions figures;
     std::string file, fractions;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses");
   cmd->add_option("scenario", o->file, "scenario TOML file (docs/scenarios.md)")->required();
   add_fractions_option(*cmd, o->fractions);
+  add_figure_options(*cmd, o->figures);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
-    Format f = parse_format(o->out.format);
+    if (o->out.format != "html") parse_format(o->out.format); // a bad format fails before the run
     Scenario sc = load_scenario(o->file);
     apply_fractions_option(o->fractions, sc);
-    emit(o->out, write_scenario(run_scenario(sc), f));
+    apply_figure_options(o->figures, sc);
+    emit_scenario(o->out, run_scenario(sc));
   });
 }
 
 void setup_sample(CLI::App& app) {
   struct Opts {
     OutputOptions out;
+    FigureOptions figures;
     SampleOptions sample;
     std::string fractions;
-    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields;
+    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr;
     std::string waveform = "sine";
     std::string structure_file, occupancy = "refuse";
     double symprec = StructureFileOptions{}.symprec;
@@ -69,9 +74,36 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--layout-fields", o->layout_fields,
                   "field geometries each candidate bar is measured in (default along-current,across-current,normal)")
       ->delimiter(',');
+  cmd->add_option("--shg", o->shg,
+                  "second-harmonic polarimetry GEOMETRY[:INCIDENCE[:AZIMUTH]] (repeatable): reflection or "
+                  "transmission; INCIDENCE any (default) or degrees from the normal (0, 15, ..., 75); AZIMUTH "
+                  "rotating (default) or degrees (multiple of 15)");
+  cmd->add_option("--shg-channels", o->shg_channels,
+                  "polariser-analyser channels for --shg, e.g. PP,PS,SP,SS (default), rotating-P, 45-S")
+      ->delimiter(',');
+  cmd->add_option("--kerr", o->kerr,
+                  "magneto-optics for a MAGNETISATION direction (repeatable): in-plane, normal, any, [uvw] or "
+                  "in-plane:ANGLE; reports the Kerr geometries the group allows and the quadratic terms")
+      ->allow_extra_args(false);
+  add_figure_options(*cmd, o->figures);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
+    if (o->out.format != "html") parse_format(o->out.format);
     Scenario sc = scenario_from_options(o->sample);
+    apply_figure_options(o->figures, sc);
+    // Optical questions without --response ask for the responses they read.
+    const bool default_responses = sc.responses.empty() && sc.tensors.empty();
+    for (const auto& k : o->kerr) sc.kerr.push_back({"magneto-optics (" + k + ")", k, "--kerr " + k});
+    if (!o->kerr.empty() && default_responses)
+      sc.responses = {"magneto-optic-kerr", "magnetic-linear-birefringence"};
+    for (const auto& s : o->shg) {
+      ShgSpec spec = parse_shg_option(s, "--shg " + s);
+      spec.channels = o->shg_channels;
+      sc.shg.push_back(spec);
+    }
+    if (!o->shg_channels.empty() && o->shg.empty())
+      fail(ErrorKind::usage, "--shg-channels needs --shg", "--shg-channels", "--shg reflection:45 --shg-channels PP,SS");
+    if (!o->shg.empty() && default_responses) sc.responses.push_back("electric-dipole-shg");
     apply_fractions_option(o->fractions, sc);
     // Neither given: the empty group symbol is refused by the catalogue with its own message.
     if (!sc.group.empty() && !o->structure_file.empty())
@@ -111,7 +143,7 @@ void setup_sample(CLI::App& app) {
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");
-    emit(o->out, write_scenario(run_scenario(sc), parse_format(o->out.format)));
+    emit_scenario(o->out, run_scenario(sc));
   });
 }
 

@@ -13,6 +13,8 @@ const char* angle_symbol(Angle a, bool latex) {
   case Angle::phi_b: return latex ? "\\varphi_B" : "phiB";
   case Angle::theta_b: return latex ? "\\theta_B" : "thetaB";
   case Angle::drive: return latex ? "\\omega t" : "wt";
+  case Angle::polariser: return latex ? "\\alpha_\\mathrm{in}" : "alpha_in";
+  case Angle::analyser: return latex ? "\\alpha_\\mathrm{out}" : "alpha_out";
   }
   return "";
 }

@@ -19,9 +19,11 @@
 
 namespace ts {
 
-// The angles a signal may depend on, in this order in a frequency vector.
-enum class Angle { phi = 0, phi_b = 1, theta_b = 2, drive = 3 };
-constexpr int angle_count = 4;
+// The angles a signal may depend on, in this order in a frequency vector. An
+// optical measurement uses phi for the sample azimuth and the polariser and
+// analyser angles (measured from P towards S, optics_geometry.hpp).
+enum class Angle { phi = 0, phi_b = 1, theta_b = 2, drive = 3, polariser = 4, analyser = 5 };
+constexpr int angle_count = 6;
 using Frequency = std::array<int, angle_count>;
 const char* angle_symbol(Angle a, bool latex = false); // "phi", "\\varphi_B", ...
 

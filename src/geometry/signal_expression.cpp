@@ -36,7 +36,8 @@ GiNaC::ex surd_ex(const Surd& s) {
   GiNaC::ex e = 0;
   for (const auto& [radicand, r] : s.terms()) {
     GiNaC::ex c = GiNaC::numeric(r.num()) / GiNaC::numeric(r.den());
-    e += radicand == 1 ? c : c * GiNaC::sqrt(GiNaC::numeric(radicand));
+    // sqrt of an ex, not of a numeric: GiNaC's numeric overload of sqrt returns a float.
+    e += radicand == 1 ? c : c * GiNaC::sqrt(GiNaC::ex(GiNaC::numeric(radicand)));
   }
   return e;
 }

@@ -5,6 +5,8 @@
 #include "report/expression_text.hpp"
 #include "report/form_report.hpp"
 #include "report/json_text.hpp"
+#include "report/figure_report.hpp"
+#include "report/optics_report.hpp"
 
 #include <algorithm>
 #include <sstream>
@@ -174,6 +176,9 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     root.insert("parts", parts);
     root.insert("bars", bars_json(r));
     root.insert("layouts", layouts_json(r));
+    if (!r.shg.empty()) root.insert("shg", shg_json(r));
+    if (!r.kerr.empty()) root.insert("magneto_optics", kerr_json(r));
+    if (sc.figures.present) root.insert("figures", figures_json(scenario_figures(r, figure_settings(sc.figures))));
     return json_text(root);
   }
 
@@ -312,7 +317,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       }
     }
   }
-  os << write_bars(r, f) << write_layouts(r, f);
+  os << write_bars(r, f) << write_layouts(r, f) << write_shg(r, f) << write_kerr(r, f);
   return finish(os.str(), f);
 }
 

@@ -157,6 +157,27 @@ BarSpec parse_bar_option(const std::string& text, const std::string& where) {
   return b;
 }
 
+ShgSpec parse_shg_option(const std::string& text, const std::string& where) {
+  ShgSpec s;
+  s.where = where;
+  s.name = "SHG (" + text + ")";
+  std::vector<std::string> fields;
+  std::size_t start = 0;
+  while (true) {
+    std::size_t colon = text.find(':', start);
+    fields.push_back(text.substr(start, colon == std::string::npos ? std::string::npos : colon - start));
+    if (colon == std::string::npos) break;
+    start = colon + 1;
+  }
+  if (fields.size() > 3)
+    fail(ErrorKind::usage, "'" + text + "' has more than three fields", where,
+         "GEOMETRY[:INCIDENCE[:AZIMUTH]], e.g. reflection:45:rotating or transmission:0");
+  if (!fields[0].empty()) s.geometry = fields[0];
+  if (fields.size() > 1 && !fields[1].empty()) s.incidence = fields[1];
+  if (fields.size() > 2 && !fields[2].empty()) s.azimuth = fields[2];
+  return s;
+}
+
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where) {
   LayoutSpec l;
   l.where = where;
@@ -247,6 +268,90 @@ void read_layouts(const toml::table& root, const std::string& path, Scenario& sc
   }
 }
 
+// An angle key that may be a whole number of degrees or a word ("any", "rotating").
+std::string get_angle(const toml::table& t, const char* key, const std::string& file, const char* valid) {
+  auto node = t.get(key);
+  if (!node) return {};
+  if (auto v = node->value_exact<int64_t>()) return std::to_string(*v);
+  if (auto v = node->value<std::string>()) return *v;
+  fail(ErrorKind::bad_file, std::string("'") + key + "' must be whole degrees or a word", at(file, node->source()), valid);
+}
+
+void read_shg(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("shg");
+  if (!node) return;
+  auto arr = node->as_array();
+  if (!arr) fail(ErrorKind::bad_file, "'shg' must be an array of tables [[shg]]", at(path, node->source()));
+  for (auto& el : *arr) {
+    auto t = el.as_table();
+    if (!t) fail(ErrorKind::bad_file, "each [[shg]] entry must be a table", at(path, el.source()));
+    check_keys(*t, {"name", "geometry", "incidence", "azimuth", "channels", "responses"}, path, "[[shg]]");
+    ShgSpec s;
+    s.where = at(path, t->source());
+    s.name = get_string(*t, "name", path, false, "a string");
+    if (s.name.empty()) s.name = "SHG " + std::to_string(sc.shg.size() + 1);
+    std::string g = get_string(*t, "geometry", path, false, "\"reflection\" or \"transmission\"");
+    if (!g.empty()) s.geometry = g;
+    std::string inc = get_angle(*t, "incidence", path, "incidence = 45 (degrees from the normal) or \"any\"");
+    if (!inc.empty()) s.incidence = inc;
+    std::string az = get_angle(*t, "azimuth", path, "azimuth = \"rotating\" or a fixed angle such as 30");
+    if (!az.empty()) s.azimuth = az;
+    s.channels = get_strings(*t, "channels", path);
+    s.responses = get_strings(*t, "responses", path);
+    sc.shg.push_back(s);
+  }
+}
+
+void read_kerr(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("kerr");
+  if (!node) return;
+  auto arr = node->as_array();
+  if (!arr) fail(ErrorKind::bad_file, "'kerr' must be an array of tables [[kerr]]", at(path, node->source()));
+  for (auto& el : *arr) {
+    auto t = el.as_table();
+    if (!t) fail(ErrorKind::bad_file, "each [[kerr]] entry must be a table", at(path, el.source()));
+    check_keys(*t, {"name", "magnetisation"}, path, "[[kerr]]");
+    KerrSpec k;
+    k.where = at(path, t->source());
+    k.name = get_string(*t, "name", path, false, "a string");
+    if (k.name.empty()) k.name = "magneto-optics " + std::to_string(sc.kerr.size() + 1);
+    std::string m = get_string(*t, "magnetisation", path, false, "in-plane, normal, any, \"[001]\" or \"in-plane:30\"");
+    if (!m.empty()) k.magnetisation = m;
+    sc.kerr.push_back(k);
+  }
+}
+
+void read_figures(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("figures");
+  if (!node) return;
+  auto t = node->as_table();
+  if (!t) fail(ErrorKind::bad_file, "'figures' must be a table [figures]", at(path, node->source()));
+  check_keys(*t, {"values", "incidence", "formats", "directory"}, path, "[figures]");
+  FigureSpec& f = sc.figures;
+  f.present = true;
+  f.where = at(path, t->source());
+  if (auto v = t->get("values")) {
+    auto vt = v->as_table();
+    if (!vt) fail(ErrorKind::bad_file, "'values' must be a table of parameter names and numbers", at(path, v->source()),
+                  "values = { chi_xxy = 0.5, chi_zzz = 1 }");
+    for (const auto& [k, x] : *vt) {
+      auto d = x.value<double>();
+      if (!d || !std::isfinite(*d))
+        fail(ErrorKind::bad_file, "illustrative value of '" + std::string(k.str()) + "' must be a number",
+             at(path, x.source()), "a finite number such as 0.5");
+      f.values[std::string(k.str())] = *d;
+    }
+  }
+  if (auto v = t->get("incidence")) {
+    auto d = v->value_exact<int64_t>();
+    if (!d || *d < 0 || *d >= 90)
+      fail(ErrorKind::bad_file, "'incidence' must be whole degrees from 0 to 89", at(path, v->source()), "incidence = 45");
+    f.incidence = static_cast<int>(*d);
+  }
+  f.formats = get_strings(*t, "formats", path);
+  f.directory = get_string(*t, "directory", path, false, "a directory path, relative to the working directory");
+}
+
 } // namespace
 
 Rational parse_fraction(const std::string& text, const std::string& where) {
@@ -304,7 +409,7 @@ Scenario parse_scenario(const std::string& text, const std::string& path) {
 Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   Scenario sc;
   sc.source = path;
-  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation"},
+  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation", "shg", "kerr", "figures"},
              path, "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
@@ -402,6 +507,9 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   for (const auto& id : sc.responses)
     check_at(position_of(root, "responses", path), [&] { ResponseCatalogue::builtin().expand(id); });
   for (const auto& t : sc.tensors) check_at(position_of(root, "tensors", path), [&] { parse_tensor_spec(t); });
+  read_shg(root, path, sc);
+  read_kerr(root, path, sc);
+  read_figures(root, path, sc);
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");
     if (auto d = rep->get("domains")) {

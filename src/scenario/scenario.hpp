@@ -10,6 +10,7 @@
 #include "geometry/lattice_metric.hpp"
 #include "lowering/structure_symmetry.hpp"
 
+#include <map>
 #include <toml++/toml.h>
 
 #include <optional>
@@ -70,6 +71,39 @@ struct ObservationRequest {
   std::string where;                   // file:line or option, for messages
 };
 
+// A second-harmonic polarimetry setup (docs/optics.md): geometry, angle of
+// incidence, sample azimuth and the polariser-analyser channels, turned into
+// an OpticalMeasurement by run_scenario.
+struct ShgSpec {
+  std::string name;
+  std::string geometry = "reflection";  // reflection or transmission
+  std::string incidence = "any";        // "any" (θ a variable) or degrees from the normal, multiple of 15, 0-75
+  std::string azimuth = "rotating";     // "rotating" or a fixed sample azimuth in degrees (multiple of 15)
+  std::vector<std::string> channels;    // empty: PP, PS, SP, SS
+  std::vector<std::string> responses;   // catalogue ids; empty: every SHG response of the scenario
+  std::string where;
+};
+
+// A magneto-optic question (docs/optics.md): the Kerr geometries the final
+// group allows, and the quadratic terms of a magnetisation direction.
+struct KerrSpec {
+  std::string name;
+  std::string magnetisation = "in-plane"; // in-plane, normal, any, [uvw], in-plane:ANGLE
+  std::string where;
+};
+
+// Figures of the scenario (docs/figures.md): illustrative parameter values,
+// the illustrative angle of incidence for setups whose θ is a variable, and
+// where and in which formats to write them ([figures] table, --figures).
+struct FigureSpec {
+  bool present = false;
+  std::map<std::string, double> values;
+  std::optional<int> incidence;
+  std::vector<std::string> formats; // svg, pdf, png; empty: svg and pdf
+  std::string directory;            // empty: no files (the JSON and HTML reports still carry the figures)
+  std::string where;
+};
+
 struct Scenario {
   std::string title;
   std::string source = "command line";
@@ -89,6 +123,9 @@ struct Scenario {
   std::vector<Rational> domain_fractions; // volume fractions of the variants; empty: equal
   std::string fractions_where;            // file:line or option of the fractions
   std::vector<ObservationRequest> observations; // [[observation]] tables
+  std::vector<ShgSpec> shg;                      // [[shg]] tables
+  std::vector<KerrSpec> kerr;                    // [[kerr]] tables
+  FigureSpec figures;                            // [figures] table
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
@@ -105,6 +142,8 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
 BarSpec parse_bar_option(const std::string& text, const std::string& where);
 // "--layout second-order-conductivity:2" -> response and harmonic.
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where);
+// "--shg reflection:45:rotating" -> geometry, incidence (default any), azimuth (default rotating).
+ShgSpec parse_shg_option(const std::string& text, const std::string& where);
 // "0.25", "1/4" or "1"; a fraction between 0 and 1, exactly. Throws Error(usage) naming `where`.
 Rational parse_fraction(const std::string& text, const std::string& where);
 

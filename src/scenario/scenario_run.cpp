@@ -216,6 +216,74 @@ std::string sample_symbol(const PointGroup& g, const Identification& id, const F
   return "";
 }
 
+namespace {
+
+ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const ResponseCatalogue& responses) {
+  ShgResult out;
+  out.measurement =
+      make_optical_measurement(spec.name, spec.geometry, spec.incidence, spec.azimuth, spec.channels, spec.where);
+  for (const auto& id : spec.responses) responses.get(id); // unknown ids fail here, with the closest ids
+  for (std::size_t k = 0; k < res.parts.size(); ++k) {
+    const PartForms& p = res.parts[k];
+    if (!p.catalogue_part || !is_shg_part(*p.catalogue_part)) continue;
+    if (!spec.responses.empty() && std::none_of(spec.responses.begin(), spec.responses.end(), [&](const std::string& id) {
+          return responses.get(id).id == p.response_id;
+        }))
+      continue;
+    ShgSource src{k, {}};
+    for (const auto& c : out.measurement.channels)
+      src.channels.push_back(shg_amplitude(*p.catalogue_part, p.forms.back(), channel_vectors(out.measurement, c)));
+    out.sources.push_back(std::move(src));
+  }
+  if (out.sources.empty())
+    fail(ErrorKind::bad_file, "the SHG setup '" + spec.name + "' finds no second-harmonic source among the responses",
+         spec.where, "add electric-dipole-shg (and magnetic-dipole-shg, electric-quadrupole-shg) to responses");
+  // Every i-type source against every c-type source: their cross term is
+  // what changes sign between the two 180° domains.
+  for (std::size_t a = 0; a < out.sources.size(); ++a)
+    for (std::size_t b = 0; b < out.sources.size(); ++b) {
+      const TensorSpec& sa = res.parts[out.sources[a].part].spec;
+      const TensorSpec& sb = res.parts[out.sources[b].part].spec;
+      if (sa.time_odd || !sb.time_odd) continue;
+      ShgInterference in{a, b, {}};
+      bool any = false;
+      for (std::size_t c = 0; c < out.measurement.channels.size(); ++c) {
+        in.cross.push_back(product_harmonics(out.sources[a].channels[c], out.sources[b].channels[c]));
+        any = any || !in.cross.back().empty();
+      }
+      if (any) out.interference.push_back(std::move(in));
+    }
+  return out;
+}
+
+KerrResult run_kerr(const KerrSpec& spec, const ScenarioResult& res, LatticeKind lattice) {
+  KerrResult out;
+  out.name = spec.name;
+  out.where = spec.where;
+  BarMeasurement m; // only its field direction: the magnetisation
+  m.where = spec.where;
+  set_bar_field(m, spec.magnetisation, res.sample, res.system, lattice, res.metric);
+  if (m.field == FieldGeometry::none || m.field == FieldGeometry::along_current || m.field == FieldGeometry::across_current)
+    fail(ErrorKind::bad_geometry, "'" + spec.magnetisation + "' is not a magnetisation direction", spec.where,
+         "in-plane, normal, any, a crystal direction [uvw] or in-plane:ANGLE");
+  out.magnetisation_label = m.field_label;
+  for (std::size_t k = 0; k < res.parts.size(); ++k) {
+    const ResponsePart* p = res.parts[k].catalogue_part;
+    if (!p) continue;
+    if (p->indices == std::vector<std::string>{"g"} && p->spec.rank == 1) out.g_part = k;
+    if (p->indices == std::vector<std::string>{"P", "light", "M", "M"}) out.q_part = k;
+  }
+  if (!out.g_part && !out.q_part)
+    fail(ErrorKind::bad_file, "the magneto-optic question '" + spec.name + "' finds neither the gyration vector nor the "
+         "quadratic term among the responses", spec.where,
+         "add magneto-optic-kerr and magnetic-linear-birefringence to responses");
+  if (out.g_part) out.kerr = kerr_readings(res.parts[*out.g_part].forms.back());
+  if (out.q_part) out.voigt = voigt_readings(res.parts[*out.q_part].forms.back(), field_vector(m));
+  return out;
+}
+
+} // namespace
+
 ScenarioResult run_scenario(const Scenario& sc) {
   ScenarioResult res;
   res.scenario = sc;
@@ -450,6 +518,8 @@ ScenarioResult run_scenario(const Scenario& sc) {
            spec.where, "add it to responses = [...]");
     res.layouts.push_back(std::move(lr));
   }
+  for (const auto& spec : sc.shg) res.shg.push_back(run_shg(spec, res, responses));
+  for (const auto& spec : sc.kerr) res.kerr.push_back(run_kerr(spec, res, lattice));
   return res;
 }
 

@@ -5,6 +5,8 @@
 #pragma once
 
 #include "geometry/layout_design.hpp"
+#include "geometry/optics_geometry.hpp"
+#include "geometry/optics_kerr.hpp"
 #include "geometry/sample_frame.hpp"
 #include "group/identify.hpp"
 #include "lowering/domains.hpp"
@@ -88,6 +90,34 @@ struct DomainReport {
   std::vector<FieldLinearTerm> in_field;  // one per applied field step, in the order of the steps
 };
 
+// What one SHG source part radiates into each channel of a setup.
+struct ShgSource {
+  std::size_t part = 0;                   // index into parts
+  std::vector<ChannelAmplitude> channels; // one per channel of the measurement
+};
+
+// An i-type and a c-type source that both radiate into a channel interfere:
+// I± = |A_i|² + |A_c|² ± 2 Re(A_i A_c*) for the two 180° domains (the c-type
+// amplitude follows the time-odd order parameter, the i-type one does not).
+struct ShgInterference {
+  std::size_t i_source = 0, c_source = 0;       // indices into ShgResult::sources
+  std::vector<std::vector<Harmonic>> cross;    // per channel: harmonics of the cross term (empty: none)
+};
+
+struct ShgResult {
+  OpticalMeasurement measurement;
+  std::vector<ShgSource> sources;
+  std::vector<ShgInterference> interference;
+};
+
+struct KerrResult {
+  std::string name, where;
+  std::string magnetisation_label;
+  std::optional<std::size_t> g_part, q_part; // indices into parts
+  std::vector<KerrReading> kerr;             // when g_part is set
+  std::vector<VoigtReading> voigt;           // when q_part is set
+};
+
 struct ScenarioResult {
   Scenario scenario;
   std::string parent_note;   // e.g. "m-3m taken as non-magnetic: m-3m1'"
@@ -103,6 +133,8 @@ struct ScenarioResult {
   std::vector<DomainReport> domains;
   std::vector<BarResult> bars;
   std::vector<LayoutResult> layouts;
+  std::vector<ShgResult> shg;
+  std::vector<KerrResult> kerr;
 };
 
 ScenarioResult run_scenario(const Scenario& scenario);

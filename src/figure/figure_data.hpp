@@ -1,0 +1,62 @@
+// The numbers behind the figures of a scenario: sampled curves of the exact
+// signals at illustrative parameter values. Parameter values in a figure are
+// never predictions: every parameter is set to an illustrative value (1
+// unless the user sets it) and each figure says so on itself and in its
+// caption. The same samples go into the JSON report, so a script can redraw
+// every picture.
+#pragma once
+
+#include "scenario/scenario_run.hpp"
+
+#include <array>
+#include <map>
+#include <string>
+#include <vector>
+
+namespace ts {
+
+struct Curve {
+  std::string label;
+  std::vector<double> x, y; // x in degrees
+};
+
+enum class FigureKind { polar, line, rosette };
+
+// One bar of a rosette sketch.
+struct RosetteBar {
+  int azimuth = 0;   // degrees from sample x
+  std::string label; // its crystal direction or angle
+};
+
+struct FigureData {
+  std::string stem;    // file name without extension: "shg-1-chi-i-type"
+  FigureKind kind = FigureKind::line;
+  std::string title;   // drawn above the plot
+  std::string x_label, y_label;
+  std::vector<std::string> panel_titles; // polar: one panel per channel
+  std::vector<std::vector<Curve>> panels; // polar: curves per panel; line: one panel
+  std::vector<RosetteBar> bars;            // rosette
+  std::array<std::string, 2> axis_labels;  // rosette: the crystal directions of sample x and y
+  std::string note;    // one line on the figure: the illustrative values
+  std::string caption; // the caption file: what is drawn, the values used, the conventions
+};
+
+struct FigureSettings {
+  std::map<std::string, double> values; // parameter name -> illustrative value
+  double default_value = 1.0;
+  int incidence_deg = 45;               // for SHG setups whose θ is a variable
+  std::string where;                    // [figures] table or option, for messages
+};
+
+// The settings of a scenario's [figures] table (or the options).
+FigureSettings figure_settings(const FigureSpec& spec);
+
+// Every figure the scenario gives: a polar plot per SHG setup and radiating
+// source (azimuth turning) or a line plot against the polariser angle, a line
+// plot per Hall bar and transport part that reads something against the
+// current (or field) angle, and a rosette sketch per layout design.
+// Throws Error(usage) naming settings.where for a value set for a parameter
+// that no figure uses.
+std::vector<FigureData> scenario_figures(const ScenarioResult& r, const FigureSettings& settings);
+
+} // namespace ts

@@ -1,0 +1,28 @@
+// Drawing the figures with cairo: polar plots, line plots and rosette
+// sketches in a plain journal style (thin black axes, labelled ticks, no
+// grid or background), in colours of a colour-blind-safe palette (Okabe and
+// Ito) with dash patterns that keep the curves apart in greyscale too.
+// Output goes to SVG, PDF or PNG bytes; files are written atomically.
+#pragma once
+
+#include "figure/figure_data.hpp"
+
+#include <string>
+#include <vector>
+
+namespace ts {
+
+enum class FigureFormat { svg, pdf, png };
+// "svg", "pdf", "png"; throws Error(usage) naming `where`.
+FigureFormat parse_figure_format(const std::string& name, const std::string& where);
+const char* figure_extension(FigureFormat f);
+
+// The figure as the bytes of a file in the given format.
+std::string render_figure(const FigureData& f, FigureFormat format);
+
+// Every figure in every format into `directory` (created if missing), each
+// with its caption beside it (STEM.caption.txt); returns the paths written.
+std::vector<std::string> write_figures(const std::vector<FigureData>& figures, const std::string& directory,
+                                       const std::vector<FigureFormat>& formats);
+
+} // namespace ts

@@ -1,0 +1,16 @@
+// The scenario report as one self-contained HTML page (`--format html` of
+// `run` and `sample`): chain, allowed forms, Hall-bar signals, optical
+// channels and the figures inline as SVG, with formulas in HTML sub- and
+// superscripts. No script, no external file, no web font: the page opens
+// offline in any browser. The footer carries the safety notes.
+#pragma once
+
+#include "scenario/scenario_run.hpp"
+
+#include <string>
+
+namespace ts {
+
+std::string write_scenario_html(const ScenarioResult& r);
+
+} // namespace ts

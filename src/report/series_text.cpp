@@ -1,0 +1,63 @@
+#include "report/series_text.hpp"
+
+namespace ts {
+
+namespace {
+
+// a + b with the sign of b pulled out: "a - c" for b = "-c".
+void append_term(std::string& s, const std::string& term) {
+  if (s.empty()) s = term;
+  else if (term[0] == '-') s += " - " + term.substr(1);
+  else s += " + " + term;
+}
+
+std::string times(TextStyle style) { return style == TextStyle::latex ? " " : "*"; }
+
+// "(a + b)" for a sum, "a" for a single signed term.
+std::string grouped(const std::string& s, std::size_t parts) { return parts > 1 ? "(" + s + ")" : s; }
+
+std::string theta_power(const std::pair<int, int>& key, TextStyle style) {
+  std::string out;
+  auto one = [&](const char* fn, int n) {
+    if (n == 0) return;
+    if (!out.empty()) out += times(style);
+    if (style == TextStyle::latex) out += std::string("\\") + fn + (n > 1 ? "^{" + std::to_string(n) + "}" : "") + "\\theta";
+    else out += std::string(fn) + "(theta)" + (n > 1 ? "^" + std::to_string(n) : "");
+  };
+  one("cos", key.first);
+  one("sin", key.second);
+  return out;
+}
+
+} // namespace
+
+std::string fourier_series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, TextStyle style) {
+  if (terms.empty()) return "0";
+  std::string s;
+  for (const auto& t : terms) {
+    std::string c = grouped(combination_text(form, t.coefficient, style), t.coefficient.size());
+    std::string fn = angle_function_text(t, style == TextStyle::latex);
+    append_term(s, fn == "1" ? c : c + times(style) + fn);
+  }
+  return s;
+}
+
+std::string optical_amplitude_text(const std::vector<OpticalTerm>& terms, const AllowedForm& form, TextStyle style) {
+  if (terms.empty()) return "0";
+  std::string s;
+  for (const auto& t : terms) {
+    std::string inner;
+    std::size_t parts = 0; // summands of the coefficient
+    for (const auto& [key, comb] : t.by_theta) {
+      const std::string mono = theta_power(key, style);
+      const std::string c = combination_text(form, comb, style);
+      append_term(inner, mono.empty() ? c : grouped(c, comb.size()) + times(style) + mono);
+      parts += mono.empty() ? comb.size() : 1;
+    }
+    const std::string fn = harmonic_text({t.k, t.sine}, style == TextStyle::latex);
+    append_term(s, fn == "1" ? inner : grouped(inner, parts) + times(style) + fn);
+  }
+  return s;
+}
+
+} // namespace ts

@@ -1,0 +1,22 @@
+// Exact series written out in a fixed order (lowest harmonic first, then the
+// order of the parameters), so the same input always gives the same bytes.
+// GiNaC orders the terms of a sum by hash values that change from run to run,
+// so its printed form is not used in reports.
+#pragma once
+
+#include "geometry/optics_geometry.hpp"
+#include "report/expression_text.hpp"
+
+#include <string>
+#include <vector>
+
+namespace ts {
+
+// "chi_xxy*sin(3phi) + (chi_zxx - chi_zzz)*cos(2phi)"; "0" when empty.
+std::string fourier_series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, TextStyle style);
+
+// An optical amplitude: per Fourier term its coefficient as a sum over powers
+// of cos θ and sin θ, e.g. "-chi_xxy*cos(theta)^3*sin(3phi) + (chi_zzz)*sin(theta)".
+std::string optical_amplitude_text(const std::vector<OpticalTerm>& terms, const AllowedForm& form, TextStyle style);
+
+} // namespace ts
