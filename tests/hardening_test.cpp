@@ -163,3 +163,12 @@ TEST_CASE("--response all and families, with the summary first", "[reports]") {
   const auto once = run_cli({"sample", "m-3m", "--response", "optics", "-f", "json"});
   CHECK(twice.out == once.out);
 }
+
+TEST_CASE("domain tables print, from variant 2 on, only what differs from variant 1", "[reports]") {
+  // Variant 2 of a polar [110] distortion of m-3m1' is the image under 2 [100]: the
+  // polar vector (T_x, T_x, 0) goes to (T_x, -T_x, 0) (common practice), so only T_y differs.
+  const auto r = run_cli({"sample", "m-3m", "--lower", "polar:[110]", "--tensor", "V", "--domains"});
+  REQUIRE(r.exit_code == 0);
+  CHECK(r.out.find("  1        1         T_x = T_x; T_y = T_x\n") != std::string::npos);
+  CHECK(r.out.find("  2        2 [100]   T_y = -T_x\n") != std::string::npos);
+}

@@ -7,6 +7,7 @@
 #include "report/output_file.hpp"
 
 #include <iostream>
+#include <malloc.h>
 
 namespace ts::cli {
 
@@ -29,6 +30,12 @@ void emit(const OutputOptions& o, const std::string& text) { write_output(o.outp
 } // namespace ts::cli
 
 int main(int argc, char** argv) {
+  // The exact solver allocates and frees many short-lived vectors; glibc's default
+  // trimming hands the top of the heap back to the kernel after each burst and makes
+  // rank-4 and rank-6 work several times slower. Keep it (docs/performance.md).
+  mallopt(M_TRIM_THRESHOLD, 256 * 1024 * 1024);
+  mallopt(M_TOP_PAD, 16 * 1024 * 1024);
+  mallopt(M_MMAP_THRESHOLD, 64 * 1024 * 1024);
   CLI::App app{"tensorsieve: symmetry-allowed transport and optical responses of crystals, films and interfaces"};
   app.set_version_flag("--version", std::string("tensorsieve ") + TENSORSIEVE_VERSION);
   app.require_subcommand(1);

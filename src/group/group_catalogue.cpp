@@ -233,6 +233,10 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::load(const std::string& data_dir
   std::set<std::string> names;
   for (const auto& c : cat->classes_)
     if (!names.insert(c.name).second) fail(ErrorKind::bad_file, "group '" + c.name + "' is defined twice", c.source);
+  // The counts of the 32 standard groups, computed once: identification asks for them
+  // about a hundred times while the catalogue loads.
+  for (const auto& c : cat->classes_)
+    if (c.standard) cat->standard_counts_.emplace_back(operation_kind_counts(c.group), &c);
   for (const auto& c : cat->classes_) {
     auto std_it = std::find_if(cat->classes_.begin(), cat->classes_.end(),
                                [&](const CrystalClass& s) { return s.standard && s.name == c.type; });
@@ -269,8 +273,8 @@ std::vector<const CrystalClass*> GroupCatalogue::standard_classes() const {
 
 const CrystalClass* GroupCatalogue::crystallographic_type_of(const PointGroup& g) const {
   auto counts = operation_kind_counts(g);
-  for (const auto& c : classes_)
-    if (c.standard && operation_kind_counts(c.group) == counts) return &c;
+  for (const auto& [standard_counts, c] : standard_counts_)
+    if (standard_counts == counts) return c;
   return nullptr;
 }
 

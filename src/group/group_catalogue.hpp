@@ -7,6 +7,7 @@
 
 #include "group/point_group.hpp"
 
+#include <array>
 #include <map>
 #include <memory>
 #include <string>
@@ -83,6 +84,7 @@ public:
 private:
   void derive_magnetic_groups();
   std::vector<CrystalClass> classes_;
+  std::vector<std::pair<std::array<int, 10>, const CrystalClass*>> standard_counts_;
   std::vector<NamedGroup> groups_;
   std::map<std::string, std::size_t> by_symbol_;
 };

@@ -62,19 +62,28 @@ std::string relation_text(const BrokenRelation& b, Format f) {
   return symbol_text(b.component, style) + " = " + factor + symbol_text(b.anchor, style);
 }
 
-// Components named by `form`, values in the parameters of `params` (the same form, or a field expansion's).
+// Components named by `form`, values in the parameters of `params` (the same form, or a field
+// expansion's); with `reference`, only those that differ from it (a domain variant against
+// variant 1), so a table shows what changes.
 std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f,
-                                   const AllowedForm* params = nullptr) {
+                                   const AllowedForm* params = nullptr, const ParamTensor* reference = nullptr) {
   TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
   std::vector<std::string> parts;
   for (int r = 0; r < form.symmetry->size(); ++r) {
     int c = form.symmetry->rep_code(r);
-    if (t.is_zero(c)) continue;
-    std::string relation = symbol_text(form.component_name(c), style) + " = " +
-                           combination_text(params ? *params : form, t.components[c], style);
+    if (reference && reference->is_zero(c) == t.is_zero(c) &&
+        (t.is_zero(c) || reference->components[c] == t.components[c]))
+      continue;
+    if (t.is_zero(c)) {
+      if (reference) parts.push_back((style == TextStyle::latex ? "$" + symbol_text(form.component_name(c), style) + " = 0$"
+                                                                : symbol_text(form.component_name(c), style) + " = 0"));
+      continue;
+    }
+    std::string relation = symbol_text(form.component_name(c), style) + " = " + combination_text(params ? *params : form, t.components[c], style);
     parts.push_back(style == TextStyle::latex ? "$" + relation + "$" : relation); // math mode inside a table cell
   }
-  return parts.empty() ? "all components vanish" : join(parts, "; ");
+  if (parts.empty()) return reference ? "as variant 1" : "all components vanish";
+  return join(parts, "; ");
 }
 
 std::string fractions_text(const DomainReport& d) {
@@ -293,8 +302,11 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       const std::size_t shown = std::min(d.analysis.variants.size(), kShownVariants);
       for (std::size_t v = 0; v < shown; ++v)
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                         capped(tensor_components_text(d.analysis.variants[v].tensor, d.form, f))});
-      os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, vrows, f);
+                         capped(tensor_components_text(d.analysis.variants[v].tensor, d.form, f, nullptr,
+                                                       v ? &d.analysis.variants[0].tensor : nullptr))});
+      os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i",
+                  "components in the parameters of variant 1 (from variant 2 on: only what differs)"},
+                 vrows, f);
       if (shown < d.analysis.variants.size())
         os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
            << " are not printed here; --format json lists them all\n";
