@@ -322,3 +322,15 @@ TEST_CASE("double counting: a B-expansion after a field step is evaluated withou
   CHECK_FALSE(hall.field_step_skipped.back());
   CHECK(hall.counts.back() == 1);
 }
+
+TEST_CASE("bar reports are byte-identical from run to run in every format", "[bar][cli]") {
+  // Canonical output (common practice for reproducible reports): the series are printed in a fixed
+  // order, never in the hash order of a computer-algebra sum.
+  for (const char* f : {"text", "markdown", "latex", "json"}) {
+    std::vector<std::string> args{"run", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml", "-f", f};
+    auto a = run_cli(args), b = run_cli(args);
+    INFO(f);
+    REQUIRE(a.exit_code == 0);
+    CHECK(a.out == b.out);
+  }
+}

@@ -1,8 +1,8 @@
 #include "report/bar_report.hpp"
 
 #include "core/text.hpp"
-#include "geometry/signal_expression.hpp"
 #include "report/expression_text.hpp"
+#include "report/series_text.hpp"
 
 #include <map>
 #include <set>
@@ -37,23 +37,27 @@ std::string function_text(const FourierTerm& t, Format f) {
 }
 
 std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, Format f) {
-  if (terms.empty()) return f == Format::latex ? "$0$" : f == Format::markdown ? "`0`" : "0";
-  std::vector<std::string> parts;
-  for (const auto& t : terms) {
-    std::string c = combination_text(form, t.coefficient, style_of(f));
-    bool single = t.coefficient.size() == 1;
-    std::string fn = angle_function_text(t, f == Format::latex);
-    if (fn == "1") parts.push_back(single ? c : "(" + c + ")");
-    else parts.push_back((single ? c : "(" + c + ")") + (f == Format::latex ? " " : "*") + fn);
+  const std::string body = fourier_series_text(terms, form, style_of(f));
+  if (f == Format::markdown) return "`" + body + "`";
+  return f == Format::latex ? "$" + body + "$" : body;
+}
+
+// R_n of V = R_n I^n for one probe, in a fixed order (GiNaC orders the terms of a
+// sum by hashes that change from run to run, so its printed form is not used):
+// "-rho0^3*L/(w*t)^2*(chi_xxy*sin(3phi))", or the LaTeX of the same.
+std::string coefficient_text(const PartSignal& ps, const ProbeSignal& p, const AllowedForm& form, TextStyle style) {
+  const int n = ps.current_order;
+  const std::string length = p.probe == Probe::longitudinal ? "L" : "w";
+  const std::string series = fourier_series_text(p.terms, form, style);
+  const bool several = p.terms.size() > 1 || (p.terms.size() == 1 && p.terms[0].coefficient.size() > 1);
+  if (style == TextStyle::latex) {
+    std::string pre = ps.part->drive == DriveKind::field ? "-\\rho_0^{" + std::to_string(n + 1) + "} " : "";
+    std::string den = n == 1 ? "w t" : "(w t)^{" + std::to_string(n) + "}";
+    return pre + "\\frac{" + length + "}{" + den + "}" + (several ? " \\left(" + series + "\\right)" : " " + series);
   }
-  std::string s;
-  for (const auto& p : parts) {
-    if (s.empty()) s = p;
-    else if (p[0] == '-') s += " - " + p.substr(1);
-    else s += " + " + p;
-  }
-  if (f == Format::markdown) return "`" + s + "`";
-  return f == Format::latex ? "$" + s + "$" : s;
+  std::string pre = ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(n + 1) + "*" : "";
+  std::string den = n == 1 ? "(w*t)" : "(w*t)^" + std::to_string(n);
+  return pre + length + "/" + den + "*" + (several ? "(" + series + ")" : series);
 }
 
 std::string part_title(const ScenarioResult& r, std::size_t k) {
@@ -191,19 +195,18 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         continue;
       }
       os << bullet(f) << "lock-in readings: " << readings_text(ps, f) << line(f);
-      ExpressionSymbols sy;
       for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
         std::string name = p->probe == Probe::longitudinal ? "longitudinal S_∥" : "transverse S_⊥";
         os << bullet(f) << prose(name, f) << " = " << series_text(p->terms, form, f) << line(f);
         if (p->reads()) {
-          GiNaC::ex e = probe_coefficient_ex(ps, *p, form, sy);
           std::string rn = std::string("R_") + std::to_string(ps.current_order) +
                            (p->probe == Probe::longitudinal ? "(∥)" : "(⊥)");
           std::string n = std::to_string(ps.current_order);
           std::string pre = std::string(ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(ps.current_order + 1) + " " : "") +
                             (p->probe == Probe::longitudinal ? "L" : "w") + "/(w t)" + (ps.current_order == 1 ? "" : "^" + n);
           os << sub_bullet(f) << prose(rn, f) << " = "
-             << (f == Format::latex ? "$" + ex_latex(e) + "$" : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
+             << (f == Format::latex ? "$" + coefficient_text(ps, *p, form, TextStyle::latex) + "$"
+                                    : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
              << line(f);
         }
         std::string z = zero_text(p->zero_azimuths);
@@ -320,7 +323,6 @@ toml::array bars_json(const ScenarioResult& r) {
                                    {"x_factor", surd_text(h.x)},
                                    {"y_factor", surd_text(h.y)}});
       t.insert("lock_in", harm);
-      ExpressionSymbols sy;
       for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
         toml::array zeros;
         for (int z : p->zero_azimuths) zeros.push_back(z);
@@ -328,9 +330,8 @@ toml::array bars_json(const ScenarioResult& r) {
         for (double d : p->largest_azimuths) largest.push_back(d);
         toml::table pt{{"terms", terms_json(p->terms, form)}, {"zero_azimuths_deg", zeros}, {"largest_azimuths_deg", largest}};
         if (p->reads()) {
-          GiNaC::ex e = probe_coefficient_ex(ps, *p, form, sy);
-          pt.insert("R_n", ex_text(e));
-          pt.insert("R_n_latex", ex_latex(e));
+          pt.insert("R_n", coefficient_text(ps, *p, form, TextStyle::plain));
+          pt.insert("R_n_latex", coefficient_text(ps, *p, form, TextStyle::latex));
         }
         if (p->probe == Probe::transverse && ps.hall_split) {
           pt.insert("gradient_terms", terms_json(p->gradient_terms, form));
