@@ -3,7 +3,7 @@
 //
 // The structures are tilted perovskites (the 15 Glazer systems, 40-atom
 // supercells, from build_tilted_perovskite) with random collinear moments on
-// the 8 B sites: a fixed-seed random sign per site and an axis drawn from
+// the 8 B sites: a random sign per site from a fixed generator state and an axis drawn from
 // [100], [001], [110], [111]. They are invented data for timing only. The
 // program prints the rate of the symmetry search alone (reading the file and
 // spglib's magnetic search) beside the rate of the whole screening, so the
