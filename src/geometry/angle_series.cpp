@@ -166,9 +166,9 @@ std::vector<FourierTerm> real_fourier_terms(const SignalSeries& s) {
   // Lowest total order first, then by frequency, cosine before sine.
   std::stable_sort(out.begin(), out.end(), [](const FourierTerm& a, const FourierTerm& b) {
     auto order = [](const Frequency& k) {
-      int s = 0;
-      for (int v : k) s += std::abs(v);
-      return s;
+      int total = 0;
+      for (int v : k) total += std::abs(v);
+      return total;
     };
     if (order(a.k) != order(b.k)) return order(a.k) < order(b.k);
     if (a.k != b.k) return a.k > b.k;
