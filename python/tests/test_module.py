@@ -132,6 +132,21 @@ def test_scenario_from_file_and_from_dict(tmp_path):
     assert "unknown key 'cutt' in [sample]" in str(caught.value)
 
 
+def test_bar_signals_from_a_scenario_dict():
+    # A (111) interface of a cubic crystal (3m1'): the zero-field 2w signal of a turning bar is
+    # L = chi_xxy sin 3phi, T = chi_xxy cos 3phi with no dipole (Sodemann & Fu, PRL 115, 216806 (2015)).
+    report = ts.scenario({"title": "3m interface", "responses": ["second-order-conductivity"],
+                          "crystal": {"group": "m-3m"}, "sample": {"cut": "(111)"},
+                          "bar": [{"current": "rotating", "field": "none"}]})
+    signals = report["bars"][0]["signals"]
+    chi = signals[0]
+    assert [t["function"] for t in chi["longitudinal"]["terms"]] == ["sin(3phi)"]
+    assert [t["function"] for t in chi["transverse"]["terms"]] == ["cos(3phi)"]
+    assert chi["transverse"]["hall_terms"] == []
+    assert signals[1]["reads"] is False  # the dipole is allowed but no planar bar reads it
+    assert chi["lock_in"][1] == {"harmonic": 2, "x_factor": "0", "y_factor": "-sqrt(2)/2"}
+
+
 def test_structure_files_and_screening():
     s = ts.structure(os.path.join(DATA, "cr2o3-afm.mcif"))
     # Cr2O3: -3'm' (Dzyaloshinskii 1960); BNS 167.106 from memory, spglib agrees.
