@@ -1,6 +1,7 @@
 #include "geometry/bar_signal.hpp"
 
 #include "core/error.hpp"
+#include "geometry/component_contraction.hpp"
 
 #include <algorithm>
 
@@ -54,24 +55,9 @@ TrigVector cross(const TrigVector& a, const TrigVector& b) {
           a[0] * b[1] + (a[1] * b[0]).scaled(Rational(-1))};
 }
 
-// Σ over all components of value(code) · Π_k vectors[k][digit_k].
 SignalSeries contract(const AllowedForm& form, const std::vector<const TrigVector*>& vectors) {
   SignalSeries out;
-  const int rank = form.spec.rank;
-  int size = 1;
-  for (int i = 0; i < rank; ++i) size *= 3;
-  for (int code = 0; code < size; ++code) {
-    std::vector<LinearTerm> value = form.value(code);
-    if (value.empty()) continue;
-    TrigPoly product = TrigPoly::constant(Rational(1));
-    int c = code;
-    for (int k = rank - 1; k >= 0 && !product.is_zero(); --k) {
-      product = product * (*vectors[k])[c % 3];
-      c /= 3;
-    }
-    if (product.is_zero()) continue;
-    for (const auto& t : value) out.add_term(t.parameter, t.coefficient, product);
-  }
+  contract_components(form, vectors, [&](int p, const Surd& c, const TrigPoly& product) { out.add_term(p, c, product); });
   return out;
 }
 

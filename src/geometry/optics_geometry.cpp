@@ -1,6 +1,7 @@
 #include "geometry/optics_geometry.hpp"
 
 #include "core/error.hpp"
+#include "geometry/component_contraction.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -241,21 +242,9 @@ ChannelAmplitude shg_amplitude(const ResponsePart& part, const AllowedForm& form
   }
   ChannelAmplitude out;
   out.per_parameter.resize(form.independent());
-  const int rank = form.spec.rank;
-  int size = 1;
-  for (int i = 0; i < rank; ++i) size *= 3;
-  for (int code = 0; code < size; ++code) {
-    std::vector<LinearTerm> value = form.value(code);
-    if (value.empty()) continue;
-    ThetaTrig product = TrigPoly::constant(Rational(1));
-    int c = code;
-    for (int k = rank - 1; k >= 0 && !product.is_zero(); --k) {
-      product = product * (*vectors[k])[c % 3];
-      c /= 3;
-    }
-    if (product.is_zero()) continue;
-    for (const auto& t : value) out.per_parameter[t.parameter] = out.per_parameter[t.parameter] + product.scaled(t.coefficient);
-  }
+  contract_components(form, vectors, [&](int p, const Surd& c, const ThetaTrig& product) {
+    out.per_parameter[p] = out.per_parameter[p] + product.scaled(c);
+  });
   return out;
 }
 
