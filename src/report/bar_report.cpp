@@ -297,13 +297,6 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
 
 toml::array bars_json(const ScenarioResult& r) {
   toml::array out;
-  auto terms_json = [](const std::vector<FourierTerm>& terms, const AllowedForm& form) {
-    toml::array a;
-    for (const auto& t : terms)
-      a.push_back(toml::table{{"function", angle_function_text(t, false)},
-                              {"coefficient", combination_text(form, t.coefficient, TextStyle::plain)}});
-    return a;
-  };
   for (const auto& b : r.bars) {
     toml::array sigs;
     for (const auto& s : b.signals) {
@@ -328,14 +321,14 @@ toml::array bars_json(const ScenarioResult& r) {
         for (int z : p->zero_azimuths) zeros.push_back(z);
         toml::array largest;
         for (double d : p->largest_azimuths) largest.push_back(d);
-        toml::table pt{{"terms", terms_json(p->terms, form)}, {"zero_azimuths_deg", zeros}, {"largest_azimuths_deg", largest}};
+        toml::table pt{{"terms", fourier_terms_json(p->terms, form)}, {"zero_azimuths_deg", zeros}, {"largest_azimuths_deg", largest}};
         if (p->reads()) {
           pt.insert("R_n", coefficient_text(ps, *p, form, TextStyle::plain));
           pt.insert("R_n_latex", coefficient_text(ps, *p, form, TextStyle::latex));
         }
         if (p->probe == Probe::transverse && ps.hall_split) {
-          pt.insert("gradient_terms", terms_json(p->gradient_terms, form));
-          pt.insert("hall_terms", terms_json(p->hall_terms, form));
+          pt.insert("gradient_terms", fourier_terms_json(p->gradient_terms, form));
+          pt.insert("hall_terms", fourier_terms_json(p->hall_terms, form));
         }
         t.insert(p->probe == Probe::longitudinal ? "longitudinal" : "transverse", pt);
       }

@@ -171,13 +171,6 @@ std::string write_kerr(const ScenarioResult& r, Format f) {
 
 toml::array kerr_json(const ScenarioResult& r) {
   toml::array out;
-  auto terms_json = [](const std::vector<FourierTerm>& terms, const AllowedForm& form) {
-    toml::array a;
-    for (const auto& t : terms)
-      a.push_back(toml::table{{"function", angle_function_text(t, false)},
-                              {"coefficient", combination_text(form, t.coefficient, TextStyle::plain)}});
-    return a;
-  };
   for (const auto& k : r.kerr) {
     toml::table t{{"name", k.name}, {"magnetisation", k.magnetisation_label}};
     if (k.g_part) {
@@ -186,13 +179,13 @@ toml::array kerr_json(const ScenarioResult& r) {
         geo.push_back(toml::table{{"geometry", kr.geometry},
                                   {"reads", kr.reads},
                                   {"allowed", kr.allowed()},
-                                  {"terms", terms_json(kr.terms, r.parts[*k.g_part].forms.back())}});
+                                  {"terms", fourier_terms_json(kr.terms, r.parts[*k.g_part].forms.back())}});
       t.insert("kerr", geo);
     }
     if (k.q_part) {
       toml::array v;
       for (const auto& q : k.voigt)
-        v.push_back(toml::table{{"component", q.indices}, {"terms", terms_json(q.terms, r.parts[*k.q_part].forms.back())}});
+        v.push_back(toml::table{{"component", q.indices}, {"terms", fourier_terms_json(q.terms, r.parts[*k.q_part].forms.back())}});
       t.insert("quadratic", v);
     }
     out.push_back(t);

@@ -42,6 +42,14 @@ std::string fourier_series_text(const std::vector<FourierTerm>& terms, const All
   return s;
 }
 
+toml::array fourier_terms_json(const std::vector<FourierTerm>& terms, const AllowedForm& form) {
+  toml::array a;
+  for (const auto& t : terms)
+    a.push_back(toml::table{{"function", angle_function_text(t, false)},
+                            {"coefficient", combination_text(form, t.coefficient, TextStyle::plain)}});
+  return a;
+}
+
 std::string optical_amplitude_text(const std::vector<OpticalTerm>& terms, const AllowedForm& form, TextStyle style) {
   if (terms.empty()) return "0";
   std::string s;

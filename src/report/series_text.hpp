@@ -7,6 +7,8 @@
 #include "geometry/optics_geometry.hpp"
 #include "report/expression_text.hpp"
 
+#include <toml++/toml.h>
+
 #include <string>
 #include <vector>
 
@@ -14,6 +16,9 @@ namespace ts {
 
 // "chi_xxy*sin(3phi) + (chi_zxx - chi_zzz)*cos(2phi)"; "0" when empty.
 std::string fourier_series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, TextStyle style);
+
+// The same terms for JSON: [{"function": "sin(3phi)", "coefficient": "chi_xxy"}, ...].
+toml::array fourier_terms_json(const std::vector<FourierTerm>& terms, const AllowedForm& form);
 
 // An optical amplitude: per Fourier term its coefficient as a sum over powers
 // of cos θ and sin θ, e.g. "-chi_xxy*cos(theta)^3*sin(3phi) + (chi_zzz)*sin(theta)".
