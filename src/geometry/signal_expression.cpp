@@ -60,21 +60,6 @@ GiNaC::ex series_ex(const std::vector<FourierTerm>& terms, const AllowedForm& fo
   return e;
 }
 
-GiNaC::ex probe_coefficient_ex(const PartSignal& ps, const ProbeSignal& probe, const AllowedForm& form,
-                               ExpressionSymbols& sy) {
-  const GiNaC::symbol &L = sy.named("L", "L"), &w = sy.named("w", "w"), &t = sy.named("t", "t");
-  GiNaC::ex length = probe.probe == Probe::longitudinal ? GiNaC::ex(L) : GiNaC::ex(w);
-  GiNaC::ex e = length * series_ex(probe.terms, form, sy) / GiNaC::pow(w * t, ps.current_order);
-  if (ps.part->drive == DriveKind::field) e = -GiNaC::pow(sy.named("rho0", "\\rho_0"), ps.current_order + 1) * e;
-  return e;
-}
-
-std::string ex_text(const GiNaC::ex& e) {
-  std::ostringstream os;
-  os << GiNaC::dflt << e;
-  return os.str();
-}
-
 std::string ex_latex(const GiNaC::ex& e) {
   std::ostringstream os;
   os << GiNaC::latex << e;

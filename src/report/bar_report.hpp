@@ -1,5 +1,5 @@
 // The Hall-bar sections of a scenario report: per bar, what each probe reads
-// from each response part (exact Fourier series, the GiNaC expression of R_n,
+// from each response part (exact Fourier series, R_n in text and LaTeX,
 // lock-in readings per harmonic, the Hall/gradient split, orientations where
 // a probe reads zero for every parameter value, and which Fourier terms tell
 // the parts apart); per layout, the bars to pattern. Writers only format the
