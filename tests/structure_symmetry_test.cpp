@@ -455,3 +455,41 @@ TEST_CASE("spglib failures come back as ts::Error naming the structure", "[struc
   empty.lattice = c.lattice;
   CHECK_THROWS_AS(find_structure_symmetry(empty), Error);
 }
+
+namespace {
+
+// An n x n x n supercell of the cubic perovskite above, listed atom by atom.
+std::string perovskite_supercell(int n, double a, const std::string& extra_site = "") {
+  std::ostringstream s;
+  s.precision(17);
+  s << "[structure]\nlattice = [[" << n * a << ", 0, 0], [0, " << n * a << ", 0], [0, 0, " << n * a << "]]\nsites = [\n";
+  const std::array<std::pair<const char*, std::array<double, 3>>, 5> basis{
+      {{"K", {0, 0, 0}}, {"Ta", {0.5, 0.5, 0.5}}, {"O", {0.5, 0.5, 0}}, {"O", {0.5, 0, 0.5}}, {"O", {0, 0.5, 0.5}}}};
+  for (int i = 0; i < n; ++i)
+    for (int j = 0; j < n; ++j)
+      for (int k = 0; k < n; ++k)
+        for (const auto& [species, f] : basis)
+          s << "  { species = \"" << species << "\", at = [" << (i + f[0]) / n << ", " << (j + f[1]) / n << ", "
+            << (k + f[2]) / n << "] },\n";
+  s << extra_site << "]\n";
+  return s.str();
+}
+
+} // namespace
+
+TEST_CASE("a supercell of many atoms keeps the point group of its cell", "[structure][spglib]") {
+  // The point group of a crystal does not depend on the cell chosen to describe it (common practice):
+  // a 6 x 6 x 6 supercell (1080 atoms, neighbours 1.99 A apart) is still m-3m.
+  const CrystalStructure c = parse_text(perovskite_supercell(6, 3.989));
+  CHECK(c.sites.size() == 1080);
+  const StructureSymmetry s = find_structure_symmetry(c);
+  CHECK(s.point_group_symbol == "m-3m");
+  CHECK(s.point_operations.size() == 48);
+}
+
+TEST_CASE("two atoms on one spot are found across the cell boundary in a large cell", "[structure][errors]") {
+  // sites[1] is at the origin; an atom at x = 1 - 1e-9 of a 23.9 A cell lies 2e-8 A from it.
+  const Error e = parse_error(perovskite_supercell(6, 3.989, "  { species = \"K\", at = [0.999999999, 0, 0] },\n"));
+  CHECK(e.problem().find("sites[1081].at") != std::string::npos);
+  CHECK(e.problem().find("same point as sites[1]") != std::string::npos);
+}

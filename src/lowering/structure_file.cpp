@@ -1,6 +1,7 @@
 #include "lowering/structure_file.hpp"
 
 #include "core/error.hpp"
+#include "lowering/site_grid.hpp"
 
 // The system stb_sprintf header that gemmi falls back to warns on every
 // include; gemmi's plain-snprintf switch avoids it, and we format no numbers
@@ -471,6 +472,7 @@ std::vector<CellSite> expand(const std::vector<ListedSite>& listed, const Operat
   std::vector<Mat> rotations;
   for (const auto& op : ops.ops) rotations.push_back(cartesian_rotation(lattice, op.w));
   std::vector<CellSite> cell;
+  SiteGrid grid(lattice, tolerance);
   std::set<std::string> merged_notes;
   for (std::size_t s = 0; s < listed.size(); ++s) {
     const ListedSite& site = listed[s];
@@ -489,7 +491,8 @@ std::vector<CellSite> expand(const std::vector<ListedSite>& listed, const Operat
       for (int i = 0; i < 3; ++i)
         for (int j = 0; j < 3; ++j) image.moment[i] += sign * rotations[k][i][j] * site.moment[j];
       bool placed = false;
-      for (auto& c : cell) {
+      for (std::size_t ci : grid.candidates(image.frac)) {
+        CellSite& c = cell[ci];
         Vec d{};
         for (int i = 0; i < 3; ++i) d[i] = image.frac[i] - c.frac[i] - std::round(image.frac[i] - c.frac[i]);
         if (length(cartesian(lattice, d)) > tolerance) continue;
@@ -525,7 +528,10 @@ std::vector<CellSite> expand(const std::vector<ListedSite>& listed, const Operat
         merged_notes.insert("=" + other.label + " and " + site.label);
         break;
       }
-      if (!placed) cell.push_back(image);
+      if (!placed) {
+        grid.insert(image.frac, cell.size());
+        cell.push_back(image);
+      }
     }
   }
   for (const auto& m : merged_notes) {

@@ -1,6 +1,7 @@
 #include "lowering/structure_symmetry.hpp"
 
 #include "core/error.hpp"
+#include "lowering/site_grid.hpp"
 
 #include <spglib.h>
 
@@ -216,18 +217,22 @@ AtomSite read_site(const toml::node& n, std::size_t index, const std::string& wh
 
 // Two atoms on one spot make spglib fail with a bare "too close" message; say which.
 void reject_coincident_sites(const CrystalStructure& cell, const toml::array& sites, const std::string& where) {
-  for (std::size_t i = 0; i < cell.sites.size(); ++i)
-    for (std::size_t j = 0; j < i; ++j) {
+  constexpr double too_close = 1e-3; // Angstrom
+  SiteGrid grid(cell.lattice, too_close);
+  for (std::size_t i = 0; i < cell.sites.size(); ++i) {
+    for (std::size_t j : grid.candidates(cell.sites[i].frac)) {
       std::array<double, 3> d{};
       for (int k = 0; k < 3; ++k) {
         d[k] = cell.sites[i].frac[k] - cell.sites[j].frac[k];
         d[k] -= std::round(d[k]);
       }
-      if (norm(to_cartesian(cell.lattice, d)) < 1e-3)
+      if (norm(to_cartesian(cell.lattice, d)) < too_close)
         bad(where, sites.get(i)->as_table()->get("at"), "sites[" + std::to_string(i + 1) + "].at",
             "lies on the same point as sites[" + std::to_string(j + 1) + "] (closer than 0.001 Angstrom)",
             "each atom at its own position; list an atom once");
     }
+    grid.insert(cell.sites[i].frac, i);
+  }
 }
 
 std::mutex spglib_mutex; // spglib 2.0's error code is one global variable
