@@ -169,6 +169,28 @@ TEST_CASE("domain tables print, from variant 2 on, only what differs from varian
   // polar vector (T_x, T_x, 0) goes to (T_x, -T_x, 0) (common practice), so only T_y differs.
   const auto r = run_cli({"sample", "m-3m", "--lower", "polar:[110]", "--tensor", "V", "--domains"});
   REQUIRE(r.exit_code == 0);
-  CHECK(r.out.find("  1        1         T_x = T_x; T_y = T_x\n") != std::string::npos);
-  CHECK(r.out.find("  2        2 [100]   T_y = -T_x\n") != std::string::npos);
+  // Variant 1 is written as a form (equal components share a line); the components of
+  // variant i carry a superscript (i), so "T_y⁽²⁾ = -T_x" cannot read as T_y = -T_y.
+  CHECK(r.out.find("  1        1         T_x = T_y; all others vanish\n") != std::string::npos);
+  CHECK(r.out.find("  2        2 [100]   T_y⁽²⁾ = -T_x\n") != std::string::npos);
+}
+
+TEST_CASE("the domain average is written as a form, one relation a line when long", "[reports]") {
+  // A polar 4mm distortion of m-3m1' along each cube axis: the average over the 6 equally
+  // populated variants of a symmetric second-rank tensor is isotropic, its trace a third of the
+  // trace of variant 1 (Nye, Physical Properties of Crystals, 1957, ch. 1: a cubic second-rank
+  // tensor is a scalar times the unit tensor).
+  const auto r = run_cli({"sample", "m-3m", "--lower", "subgroup:4mm", "--tensor", "[V2]", "--domains"});
+  REQUIRE(r.exit_code == 0);
+  CHECK(r.out.find("average over equal populations: ⟨T_xx⟩ = ⟨T_yy⟩ = ⟨T_zz⟩ = 2/3*T_xx + 1/3*T_zz; all others vanish\n") !=
+        std::string::npos);
+  // The rank-4 average over the polar [001] variants (cubic again: three parameters, as c11, c12,
+  // c44 of a cubic crystal, Nye 1957, ch. 8) does not fit on a line: one relation a line.
+  const auto w = run_cli({"sample", "m-3m", "--lower", "polar:[001]", "--tensor", "[V2][V2]", "--domains"});
+  REQUIRE(w.exit_code == 0);
+  const auto at = w.out.find("average over equal populations:\n  ⟨");
+  REQUIRE(at != std::string::npos);
+  const auto end = w.out.find("\n\n", at);
+  for (std::size_t nl = w.out.find('\n', at); nl < end; nl = w.out.find('\n', nl + 1))
+    CHECK(w.out.find('\n', nl + 1) - nl < 200); // no relation line runs on
 }

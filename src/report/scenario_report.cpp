@@ -65,9 +65,22 @@ std::string relation_text(const BrokenRelation& b, Format f) {
 // Components named by `form`, values in the parameters of `params` (the same form, or a field
 // expansion's); with `reference`, only those that differ from it (a domain variant against
 // variant 1), so a table shows what changes.
+// "h_z⁽³⁾": a component of domain variant 3, kept apart from the parameters of
+// variant 1 that the right-hand sides are written in.
+std::string variant_component(const std::string& symbol, std::size_t variant, TextStyle style) {
+  if (variant == 0) return symbol;
+  if (style == TextStyle::latex) return symbol + "^{(" + std::to_string(variant) + ")}";
+  static const char* const digits[] = {"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"};
+  std::string sup;
+  for (char ch : std::to_string(variant)) sup += digits[ch - '0'];
+  return symbol + "⁽" + sup + "⁾";
+}
+
 std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f,
-                                   const AllowedForm* params = nullptr, const ParamTensor* reference = nullptr) {
+                                   const AllowedForm* params = nullptr, const ParamTensor* reference = nullptr,
+                                   std::size_t variant = 0) {
   TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
+  auto lhs = [&](int c) { return variant_component(symbol_text(form.component_name(c), style), variant, style); };
   std::vector<std::string> parts;
   for (int r = 0; r < form.symmetry->size(); ++r) {
     int c = form.symmetry->rep_code(r);
@@ -75,15 +88,81 @@ std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form
         (t.is_zero(c) || reference->components[c] == t.components[c]))
       continue;
     if (t.is_zero(c)) {
-      if (reference) parts.push_back((style == TextStyle::latex ? "$" + symbol_text(form.component_name(c), style) + " = 0$"
-                                                                : symbol_text(form.component_name(c), style) + " = 0"));
+      if (reference) parts.push_back(style == TextStyle::latex ? "$" + lhs(c) + " = 0$" : lhs(c) + " = 0");
       continue;
     }
-    std::string relation = symbol_text(form.component_name(c), style) + " = " + combination_text(params ? *params : form, t.components[c], style);
+    std::string relation = lhs(c) + " = " + combination_text(params ? *params : form, t.components[c], style);
     parts.push_back(style == TextStyle::latex ? "$" + relation + "$" : relation); // math mode inside a table cell
   }
   if (parts.empty()) return reference ? "as variant 1" : "all components vanish";
   return join(parts, "; ");
+}
+
+// A tensor given as combinations of parameters, written as a form: components with
+// the same combination (or its negative) share one line, ⟨A⟩ = ⟨B⟩ = -⟨C⟩ = expr.
+// `averaged` puts the components in angle brackets, so the average's components are
+// not mistaken for the parameters of variant 1 they are expressed in; without it a
+// component that is its own parameter is not repeated (T_xx = T_yy, not T_xx = T_yy = T_xx).
+std::vector<std::string> grouped_form_relations(const ParamTensor& t, const AllowedForm& form, Format f, bool averaged,
+                                                const AllowedForm* params = nullptr) {
+  const TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
+  struct Line {
+    Combination value;
+    std::vector<std::pair<bool, int>> members; // negated?, component code
+  };
+  std::vector<Line> lines;
+  bool some_zero = false;
+  for (int r = 0; r < form.symmetry->size(); ++r) {
+    const int c = form.symmetry->rep_code(r);
+    if (t.is_zero(c)) {
+      some_zero = true;
+      continue;
+    }
+    Combination negated = t.components[c];
+    for (auto& term : negated) term.coefficient = -term.coefficient;
+    auto same = std::find_if(lines.begin(), lines.end(), [&](const Line& l) { return l.value == t.components[c]; });
+    auto opposite = std::find_if(lines.begin(), lines.end(), [&](const Line& l) { return l.value == negated; });
+    if (same != lines.end()) same->members.push_back({false, c});
+    else if (opposite != lines.end()) opposite->members.push_back({true, c});
+    else lines.push_back({t.components[c], {{false, c}}});
+  }
+  if (lines.empty()) return {"all components vanish"};
+  const AllowedForm& named = params ? *params : form;
+  auto component = [&](int c) {
+    const std::string s = symbol_text(form.component_name(c), style);
+    if (!averaged) return s;
+    return style == TextStyle::latex ? "\\langle " + s + "\\rangle" : "⟨" + s + "⟩";
+  };
+  std::vector<std::string> parts;
+  for (const auto& l : lines) {
+    std::vector<std::string> names;
+    for (const auto& [neg, c] : l.members) names.push_back((neg ? "-" : "") + component(c));
+    const std::string value = combination_text(named, l.value, style);
+    const bool is_own_parameter = !averaged && value == symbol_text(form.component_name(l.members.front().second), style);
+    std::string relation = join(names, " = ") + (is_own_parameter ? "" : " = " + value);
+    parts.push_back(style == TextStyle::latex ? "$" + relation + "$" : relation);
+  }
+  if (some_zero) parts.push_back("all others vanish");
+  return parts;
+}
+
+std::string grouped_form_text(const ParamTensor& t, const AllowedForm& form, Format f, bool averaged) {
+  return join(grouped_form_relations(t, form, f, averaged), "; ");
+}
+
+// The average after "average over ...:": on the same line when it is short, else one
+// relation a line (LaTeX wraps a paragraph itself), at most kShownLines of them.
+std::string average_text(const std::vector<std::string>& relations, Format f) {
+  constexpr std::size_t kShortLine = 100, kShownLines = 40;
+  const std::string one_line = join(relations, "; ");
+  if (f == Format::latex || one_line.size() <= kShortLine) return " " + one_line + "\n";
+  std::string out = "\n";
+  for (std::size_t i = 0; i < relations.size() && i < kShownLines; ++i)
+    out += (f == Format::markdown ? "- " : "  ") + relations[i] + "\n";
+  if (relations.size() > kShownLines)
+    out += (f == Format::markdown ? "- " : "  ") + std::string("... ") + std::to_string(relations.size() - kShownLines) +
+           " more relations; --format json lists every component\n";
+  return out;
 }
 
 std::string fractions_text(const DomainReport& d) {
@@ -302,16 +381,18 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       const std::size_t shown = std::min(d.analysis.variants.size(), kShownVariants);
       for (std::size_t v = 0; v < shown; ++v)
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                         capped(tensor_components_text(d.analysis.variants[v].tensor, d.form, f, nullptr,
-                                                       v ? &d.analysis.variants[0].tensor : nullptr))});
+                         capped(v ? tensor_components_text(d.analysis.variants[v].tensor, d.form, f, nullptr,
+                                                           &d.analysis.variants[0].tensor, v + 1)
+                                  : grouped_form_text(d.analysis.variants[0].tensor, d.form, f, false))});
       os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i",
-                  "components in the parameters of variant 1 (from variant 2 on: only what differs)"},
+                  "components of variant i in the parameters of variant 1 (from variant 2 on: only what differs)"},
                  vrows, f);
       if (shown < d.analysis.variants.size())
         os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
            << " are not printed here; --format json lists them all\n";
       os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
-         << (f == Format::markdown ? "** " : " ") << capped(tensor_components_text(d.analysis.average, d.form, f)) << "\n\n";
+         << (f == Format::markdown ? "**" : "") << average_text(grouped_form_relations(d.analysis.average, d.form, f, true), f)
+         << "\n";
       for (const auto& t : d.in_field) {
         const std::string field_symbol = t.expansion.name.substr(p.spec.name.size());
         os << heading("every variant in the lab-frame " + t.field.label + ": the part linear in the field, per unit " +
@@ -324,8 +405,8 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
                            capped(tensor_components_text(t.variants[v], d.form, f, &t.form))});
         os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, frows, f);
         os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
-           << (f == Format::markdown ? "** " : " ") << capped(tensor_components_text(t.average, d.form, f, &t.form))
-           << "\n\n";
+           << (f == Format::markdown ? "**" : "")
+           << average_text(grouped_form_relations(t.average, d.form, f, true, &t.form), f) << "\n";
       }
     }
   }
