@@ -13,6 +13,7 @@
 
 #include "lowering/glazer_tilts.hpp"
 #include "lowering/structure_file.hpp"
+#include "lowering/structure_symmetry.hpp"
 #include "scenario/screening.hpp"
 
 #include <cmath>
@@ -59,6 +60,41 @@ std::string invented_mcif(const ts::CrystalStructure& cell, const std::array<dou
     os << "B" << k + 1 << " " << sign * axis[0] << " " << sign * axis[1] << " " << sign * axis[2] << "\n";
   }
   return os.str();
+}
+
+// An n x n x n supercell of a cubic perovskite (a = 3.9 A, invented for timing), atom by atom.
+std::string perovskite_supercell_toml(int n) {
+  std::ostringstream os;
+  os.precision(12);
+  os << "[structure]\nlattice = [[" << 3.9 * n << ", 0, 0], [0, " << 3.9 * n << ", 0], [0, 0, " << 3.9 * n
+     << "]]\nsites = [\n";
+  const std::pair<const char*, std::array<double, 3>> basis[] = {
+      {"A", {0, 0, 0}}, {"B", {0.5, 0.5, 0.5}}, {"O", {0.5, 0.5, 0}}, {"O", {0.5, 0, 0.5}}, {"O", {0, 0.5, 0.5}}};
+  for (int i = 0; i < n; ++i)
+    for (int j = 0; j < n; ++j)
+      for (int k = 0; k < n; ++k)
+        for (const auto& [species, f] : basis)
+          os << "{ species = \"" << species << "\", at = [" << (i + f[0]) / n << ", " << (j + f[1]) / n << ", "
+             << (k + f[2]) / n << "] },\n";
+  os << "]\n";
+  return os.str();
+}
+
+// Large cells: reading a structure block (with the check that no two atoms share a spot)
+// should grow linearly with the number of atoms; spglib's own search is timed beside it.
+void large_cells() {
+  std::printf("large cells (cubic perovskite supercells, structure TOML, 1 thread):\n");
+  std::printf("  %7s  %12s  %14s  %12s\n", "atoms", "TOML parse", "our checks", "spglib");
+  for (int n : {2, 4, 8, 12, 16}) {
+    const std::string text = perovskite_supercell_toml(n);
+    toml::table doc;
+    const double parse = ts::bench::seconds_of([&] { doc = toml::parse(std::string_view(text), std::string_view("bench.toml")); });
+    ts::CrystalStructure cell;
+    const double read = ts::bench::seconds_of(
+        [&] { cell = ts::parse_structure(*doc["structure"].as_table(), "bench.toml:[structure]"); });
+    const double search = ts::bench::seconds_of([&] { ts::find_structure_symmetry(cell); });
+    std::printf("  %7zu  %10.3f s  %12.3f s  %10.3f s\n", cell.sites.size(), parse, read, search);
+  }
 }
 
 } // namespace
@@ -108,5 +144,6 @@ int main() {
   }
   if (failed) std::printf("  %d of the files failed (see tensorsieve screen on the folder)\n", failed);
   if (!std::getenv("TENSORSIEVE_BENCH_KEEP")) fs::remove_all(dir);
+  large_cells();
   return 0;
 }
