@@ -60,7 +60,7 @@ TEST_CASE("Fresnel transmission of a real index: the textbook t_s and t_p (Born 
   auto l0 = interface_local_field(1.0, 1.5, 0.0);
   CHECK(near(l0[0], 0.8));
   CHECK(near(l0[1], 0.8));
-  CHECK(near(l0[2], 0.8 / 1.5)); // D_z continuous: n1² E_z1 = n2² E_z2, so L_z = t_p n1/n2
+  CHECK(near(l0[2], 0.8 / 1.5)); // L_z = t_p sin θ2 / sin θ1 = t_p n1/n2 by Snell's law
 
   for (double n2 : {1.33, 1.5, 2.2, 3.5})
     for (int deg : {15, 30, 45, 60, 75}) {
