@@ -327,6 +327,10 @@ n_2omega = "1.5+0.1i"
   REQUIRE(sc.shg[0].indices);
   CHECK(sc.shg[0].indices->ambient.value == Complex(1, 0));
   CHECK(sc.shg[0].indices->two_omega.value == Complex(1.5, 0.1));
+  CHECK(sc.shg[0].indices->omega.text == "1.5"); // a TOML number is reported as written
+  Scenario precise = parse_scenario("responses = [\"electric-dipole-shg\"]\n[crystal]\ngroup = \"m-3m\"\n[[shg]]\nn_omega = 2.2345678\nn_2omega = 3\n", "p.toml");
+  CHECK(precise.shg[0].indices->omega.text == "2.2345678");
+  CHECK(precise.shg[0].indices->two_omega.text == "3");
   ScenarioResult r = run_scenario(sc);
   CHECK(near(r.shg[0].measurement.local_field.values[Ly_w], 0.696663, 1e-6));
   CHECK_THROWS_WITH(parse_scenario("[crystal]\ngroup = \"m-3m\"\n[[shg]]\nn_omega = \"2.2+x\"\nn_2omega = 2\n", "bad.toml"),

@@ -10,6 +10,7 @@
 #include <toml++/toml.h>
 
 #include <cmath>
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -289,9 +290,9 @@ std::optional<RefractiveIndex> get_index(const toml::table& t, const char* key, 
   if (!node) return std::nullopt;
   const std::string where = at(file, node->source()) + ": " + key;
   if (auto v = node->value_exact<double>()) {
-    std::ostringstream os;
-    os << *v;
-    return parse_refractive_index(os.str(), ambient, ErrorKind::bad_file, where);
+    char text[32]; // 15 significant digits: the number as written, without binary noise
+    std::snprintf(text, sizeof text, "%.15g", *v);
+    return parse_refractive_index(text, ambient, ErrorKind::bad_file, where);
   }
   if (auto v = node->value_exact<int64_t>()) return parse_refractive_index(std::to_string(*v), ambient, ErrorKind::bad_file, where);
   if (auto v = node->value<std::string>()) return parse_refractive_index(*v, ambient, ErrorKind::bad_file, where);
