@@ -43,8 +43,8 @@ Surd exact_value(const ThetaTrig& f, int theta, int phi) {
   Surd sum;
   for (const auto& [key, poly] : f.terms()) {
     Surd mono = Rational(1);
-    for (int i = 0; i < key.first; ++i) mono = mono * cos_degrees(theta);
-    for (int i = 0; i < key.second; ++i) mono = mono * sin_degrees(theta);
+    for (int i = 0; i < key.cos_theta; ++i) mono = mono * cos_degrees(theta);
+    for (int i = 0; i < key.sin_theta; ++i) mono = mono * sin_degrees(theta);
     for (const auto& [k, c] : poly.terms()) {
       int arg = k[static_cast<int>(Angle::phi)] * phi;
       sum += mono * (c.re * cos_degrees(arg) - c.im * sin_degrees(arg));

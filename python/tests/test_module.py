@@ -170,3 +170,72 @@ def test_the_documented_example_runs(capsys):
     assert "fm-001.mcif  4/mm'm'" in out and "AHE 1" in out
     assert "afm-001.mcif 4/mmm1'" in out
     assert "P(2w) = [d_xxz*sin(2*phi), 0, d_zxx*cos(phi)**2 + d_zzz*sin(phi)**2]" in out
+
+
+# Fresnel / local-field factors of SHG in reflection, two-medium model: sympy
+# computes them independently from Snell's law with a complex angle and the
+# transmission coefficients of Born and Wolf, Principles of Optics, section 1.5.2
+# (from memory): t_s = 2 n1 cos t1 / (n1 cos t1 + n2 cos t2), t_p = 2 n1 cos t1 /
+# (n2 cos t1 + n1 cos t2); then L_x = t_p cos t2 / cos t1, L_y = t_s and
+# L_z = t_p sin t2 / sin t1 (the x and z components of the transmitted P wave).
+# cos t2 is taken on the branch Im(n2 cos t2) >= 0: the wave decays into medium 2.
+def sympy_local_field(n1, n2, degrees):
+    t1 = sympy.rad(degrees)
+    s2 = n1 * sympy.sin(t1) / n2
+    c2 = sympy.sqrt(1 - s2 ** 2)
+    if sympy.im(sympy.N(n2 * c2, 30)) < 0:
+        c2 = -c2
+    ts_ = 2 * n1 * sympy.cos(t1) / (n1 * sympy.cos(t1) + n2 * c2)
+    tp_ = 2 * n1 * sympy.cos(t1) / (n2 * sympy.cos(t1) + n1 * c2)
+    lz = tp_ * n1 / n2 if degrees == 0 else tp_ * s2 / sympy.sin(t1)
+    return [complex(sympy.N(v, 20)) for v in (tp_ * c2 / sympy.cos(t1), ts_, lz)]
+
+
+def sympy_index(text):
+    return sympy.nsimplify(sympy.sympify(text.replace("i", "*I")), rational=True)
+
+
+LOCAL_FIELD_CASES = [
+    ("1", "1.5", "1.6", 45),            # glass-like, transparent
+    ("1", "2.2+0.01i", "2.3+0.05i", 60),  # weakly absorbing at both frequencies
+    ("1", "0.2+3.4i", "1.1+1.9i", 30),   # a metal at omega: n'' > n'
+    ("1.5", "1", "1.2", 60),            # from a prism: total internal reflection at both frequencies
+    ("1", "3.5", "3.9+0.2i", 0),         # normal incidence
+]
+
+
+@pytest.mark.parametrize("ambient,n_omega,n_2omega,incidence", LOCAL_FIELD_CASES)
+def test_local_field_factors_against_sympy(ambient, n_omega, n_2omega, incidence):
+    report = ts.scenario({"responses": ["electric-dipole-shg"], "crystal": {"group": "m-3m"},
+                          "sample": {"cut": "(111)"},
+                          "shg": [{"incidence": incidence, "n_ambient": ambient, "n_omega": n_omega,
+                                   "n_2omega": n_2omega, "channels": ["PP", "SS"]}]})
+    shg = report["shg"][0]
+    assert shg["local_field_factors"] is True
+    lf = shg["local_field"]
+    assert (lf["n_ambient"], lf["n_omega"], lf["n_2omega"]) == (ambient, n_omega, n_2omega)
+    n1 = sympy_index(ambient)
+    want = sympy_local_field(n1, sympy_index(n_omega), incidence) + \
+        sympy_local_field(n1, sympy_index(n_2omega), incidence)
+    for name, value in zip(lf["symbols"], want):
+        got = complex(lf["values"][name]["re"], lf["values"][name]["im"])
+        assert abs(got - value) < 1e-9, name
+    # The amplitudes carry the symbols, and the same dark channels as without factors.
+    # At normal incidence S and P are one wave: the in-plane factors are written as L_x.
+    pp, ss = shg["sources"][0]["channels"]
+    if incidence == 0:
+        assert pp["amplitude"] == "chi_xxy*Lx_w^2*Lx_2w*sin(3phi)"
+        assert ss["amplitude"] == "-chi_xxy*Lx_w^2*Lx_2w*cos(3phi)"
+    else:
+        assert "Lz_2w" in pp["amplitude"] and "L_{z}(2\\omega)" in pp["amplitude_latex"]
+        assert "Ly_w^2*Ly_2w" in ss["amplitude"]
+    bare = ts.scenario({"responses": ["electric-dipole-shg"], "crystal": {"group": "m-3m"},
+                        "sample": {"cut": "(111)"}, "shg": [{"incidence": incidence, "channels": ["PP", "SS"]}]})
+    assert bare["shg"][0]["dark_channels"] == shg["dark_channels"]
+    assert bare["shg"][0]["local_field_factors"] is False
+
+
+def test_local_field_bad_index_names_the_field():
+    with pytest.raises(ts.Error, match="n_2omega"):
+        ts.scenario({"responses": ["electric-dipole-shg"], "crystal": {"group": "m-3m"},
+                     "shg": [{"incidence": 45, "n_omega": "2.2", "n_2omega": "2.2+-1i"}]})

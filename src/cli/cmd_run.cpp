@@ -39,6 +39,8 @@ void setup_sample(CLI::App& app) {
     SampleOptions sample;
     std::string fractions;
     std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr;
+    bool shg_local_field = false;
+    std::string shg_indices;
     std::string waveform = "sine";
     std::string structure_file, occupancy = "refuse";
     double symprec = StructureFileOptions{}.symprec;
@@ -81,6 +83,11 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--shg-channels", o->shg_channels,
                   "polariser-analyser channels for --shg, e.g. PP,PS,SP,SS (default), rotating-P, 45-S")
       ->delimiter(',');
+  cmd->add_flag("--shg-local-field", o->shg_local_field,
+                "apply Fresnel / local-field factors to --shg (reflection), as symbols Lx_w ... Lz_2w in the amplitudes");
+  cmd->add_option("--shg-indices", o->shg_indices,
+                  "refractive indices for the factors of --shg (implies --shg-local-field; needs a fixed incidence): "
+                  "N_AMBIENT,N_OMEGA,N_2OMEGA or N_OMEGA,N_2OMEGA, complex allowed, e.g. 1,2.2+0.01i,2.3+0.05i");
   cmd->add_option("--kerr", o->kerr,
                   "magneto-optics for a MAGNETISATION direction (repeatable): in-plane, normal, any, [uvw] or "
                   "in-plane:ANGLE; reports the Kerr geometries the group allows and the quadratic terms")
@@ -96,13 +103,20 @@ void setup_sample(CLI::App& app) {
     for (const auto& k : o->kerr) sc.kerr.push_back({"magneto-optics (" + k + ")", k, "--kerr " + k});
     if (!o->kerr.empty() && default_responses)
       sc.responses = {"magneto-optic-kerr", "magnetic-linear-birefringence"};
+    std::optional<RefractiveIndices> indices;
+    if (!o->shg_indices.empty()) indices = parse_indices_option(o->shg_indices, "--shg-indices");
     for (const auto& s : o->shg) {
       ShgSpec spec = parse_shg_option(s, "--shg " + s);
       spec.channels = o->shg_channels;
+      spec.local_field = o->shg_local_field || indices.has_value();
+      spec.indices = indices;
       sc.shg.push_back(spec);
     }
     if (!o->shg_channels.empty() && o->shg.empty())
       fail(ErrorKind::usage, "--shg-channels needs --shg", "--shg-channels", "--shg reflection:45 --shg-channels PP,SS");
+    if ((o->shg_local_field || indices) && o->shg.empty())
+      fail(ErrorKind::usage, "local-field factors need --shg", o->shg_local_field ? "--shg-local-field" : "--shg-indices",
+           "--shg reflection:45 --shg-indices 1,2.2+0.01i,2.3+0.05i");
     if (!o->shg.empty() && default_responses) sc.responses.push_back("electric-dipole-shg");
     apply_fractions_option(o->fractions, sc);
     // Neither given: the empty group symbol is refused by the catalogue with its own message.

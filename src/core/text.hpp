@@ -12,6 +12,18 @@ inline std::string join(const std::vector<std::string>& items, const std::string
   return s;
 }
 
+// "a:b::c" -> {"a", "b", "", "c"}: every field, empty ones included.
+inline std::vector<std::string> split(const std::string& text, char separator) {
+  std::vector<std::string> fields;
+  std::size_t start = 0;
+  while (true) {
+    std::size_t at = text.find(separator, start);
+    fields.push_back(text.substr(start, at == std::string::npos ? std::string::npos : at - start));
+    if (at == std::string::npos) return fields;
+    start = at + 1;
+  }
+}
+
 // An error message made safe for a terminal: invalid UTF-8 (a quoted fragment of a
 // multi-byte character, binary input) becomes '?', control characters other than
 // newline become '?', and each line is cut to max_line bytes at a character boundary,

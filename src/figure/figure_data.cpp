@@ -61,12 +61,23 @@ double series_value(const std::vector<FourierTerm>& terms, const AllowedForm& fo
 
 const char* illustrative_note = "Illustrative parameter values, not predictions";
 
+std::string figure_local_field_text(const OpticalMeasurement& m) {
+  std::string s = local_field_text(m);
+  s[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(s[0])));
+  if (m.local_field.applied && !m.local_field.indices) s += "; the curves take every factor as 1";
+  return s;
+}
+
 void shg_figures(const ScenarioResult& r, const FigureSettings& settings, Values& values, std::vector<FigureData>& out) {
   for (std::size_t si = 0; si < r.shg.size(); ++si) {
     const ShgResult& s = r.shg[si];
     const OpticalMeasurement& m = s.measurement;
     const int theta_deg = m.incidence_deg ? *m.incidence_deg : settings.incidence_deg;
     const double theta = theta_deg * pi / 180;
+    // Factors without indices have no numbers: the curves take them as 1, and say so.
+    std::array<Complex, local_field_symbol_count> factors;
+    factors.fill(Complex(1, 0));
+    if (m.local_field.indices) factors = m.local_field.values;
     for (const auto& src : s.sources) {
       const PartForms& p = r.parts[src.part];
       const AllowedForm& form = p.forms.back();
@@ -94,11 +105,12 @@ void shg_figures(const ScenarioResult& r, const FigureSettings& settings, Values
           std::array<double, angle_count> angles{};
           angles[static_cast<int>(m.azimuth_rotating ? Angle::phi : Angle::polariser)] = rad;
           if (!m.azimuth_rotating) angles[static_cast<int>(Angle::phi)] = m.azimuth_deg * pi / 180;
-          double amp = 0;
+          Complex amp = 0;
           for (int j = 0; j < form.independent(); ++j)
-            amp += values.of(form.parameter_name(j)) * theta_trig_value(src.channels[c].per_parameter[j], theta, angles);
+            amp += values.of(form.parameter_name(j)) *
+                   theta_trig_value(src.channels[c].per_parameter[j], theta, angles, factors);
           curve.x.push_back(x);
-          curve.y.push_back(amp * amp);
+          curve.y.push_back(std::norm(amp));
         }
         if (f.kind == FigureKind::polar) {
           f.panel_titles.push_back(ch.name);
@@ -111,7 +123,12 @@ void shg_figures(const ScenarioResult& r, const FigureSettings& settings, Values
       if (f.panels.empty()) continue;
       const std::string theta_text = "θ = " + std::to_string(theta_deg) + "°" + (m.incidence_deg ? "" : " (illustrative)");
       f.note = std::string(illustrative_note) + "; " + theta_text + "; all parameters " +
-               (settings.values.empty() ? "1" : "1 unless set") + ".";
+               (settings.values.empty() ? "1" : "1 unless set") +
+               (!m.local_field.applied ? ""
+                : m.local_field.indices ? "; local-field factors from n(ω) = " + m.local_field.indices->omega.text +
+                                              ", n(2ω) = " + m.local_field.indices->two_omega.text
+                                        : "; local-field factors 1") +
+               ".";
       std::ostringstream cap;
       cap << "Second-harmonic intensity of the source '" << p.part_label << "' (" << p.response_id << ") in "
           << optical_setup_text(m) << ", at " << theta_text << ", "
@@ -120,8 +137,8 @@ void shg_figures(const ScenarioResult& r, const FigureSettings& settings, Values
           << ". Every panel is scaled to the largest intensity of the figure. The parameter values are illustrative, "
              "not predictions: "
           << values.listed(form)
-          << " (real values; set them with [figures] values or --figure-value). No Fresnel or local-field factors. "
-             "The exact amplitudes are in the report.";
+          << " (real values; set them with [figures] values or --figure-value). " << figure_local_field_text(m)
+          << ". The exact amplitudes are in the report.";
       if (!skipped.empty()) {
         cap << " Not drawn here (the sample and the polariser cannot both turn in one plot): ";
         for (std::size_t i = 0; i < skipped.size(); ++i) cap << (i ? ", " : "") << skipped[i];

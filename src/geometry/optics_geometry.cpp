@@ -9,27 +9,49 @@
 
 namespace ts {
 
-ThetaTrig::ThetaTrig(const TrigPoly& p) { add({0, 0}, p); }
+OpticalMonomial operator*(const OpticalMonomial& a, const OpticalMonomial& b) {
+  OpticalMonomial r;
+  r.cos_theta = a.cos_theta + b.cos_theta;
+  r.sin_theta = a.sin_theta + b.sin_theta;
+  for (int i = 0; i < local_field_symbol_count; ++i) r.field[i] = a.field[i] + b.field[i];
+  return r;
+}
+
+ThetaTrig::ThetaTrig(const TrigPoly& p) { add({}, p); }
 
 ThetaTrig ThetaTrig::cos_theta() {
   ThetaTrig t;
-  t.add({1, 0}, TrigPoly::constant(Rational(1)));
+  OpticalMonomial m;
+  m.cos_theta = 1;
+  t.add(m, TrigPoly::constant(Rational(1)));
   return t;
 }
 
 ThetaTrig ThetaTrig::sin_theta() {
   ThetaTrig t;
-  t.add({0, 1}, TrigPoly::constant(Rational(1)));
+  OpticalMonomial m;
+  m.sin_theta = 1;
+  t.add(m, TrigPoly::constant(Rational(1)));
   return t;
 }
 
-void ThetaTrig::add(std::pair<int, int> key, const TrigPoly& p) {
+ThetaTrig ThetaTrig::local_field(int symbol) {
+  ThetaTrig t;
+  OpticalMonomial m;
+  m.field[symbol] = 1;
+  t.add(m, TrigPoly::constant(Rational(1)));
+  return t;
+}
+
+void ThetaTrig::add(OpticalMonomial key, const TrigPoly& p) {
   if (p.is_zero()) return;
   // sin²θ = 1 - cos²θ keeps sin θ to the first power: the monomials left are
   // linearly independent functions of θ, so an empty map is an exact zero.
-  if (key.second >= 2) {
-    add({key.first, key.second - 2}, p);
-    add({key.first + 2, key.second - 2}, p.scaled(Rational(-1)));
+  if (key.sin_theta >= 2) {
+    key.sin_theta -= 2;
+    add(key, p);
+    key.cos_theta += 2;
+    add(key, p.scaled(Rational(-1)));
     return;
   }
   auto it = terms_.find(key);
@@ -50,7 +72,7 @@ ThetaTrig operator+(const ThetaTrig& a, const ThetaTrig& b) {
 ThetaTrig operator*(const ThetaTrig& a, const ThetaTrig& b) {
   ThetaTrig r;
   for (const auto& [ka, pa] : a.terms_)
-    for (const auto& [kb, pb] : b.terms_) r.add({ka.first + kb.first, ka.second + kb.second}, pa * pb);
+    for (const auto& [kb, pb] : b.terms_) r.add(ka * kb, pa * pb);
   return r;
 }
 
@@ -170,6 +192,21 @@ OpticalMeasurement make_optical_measurement(const std::string& name, const std::
   return m;
 }
 
+void apply_local_field(OpticalMeasurement& m, const std::optional<RefractiveIndices>& indices, const std::string& where) {
+  if (m.mode != OpticsMode::reflection)
+    fail(ErrorKind::bad_geometry, "local-field factors are modelled for reflection only", where,
+         "the reflection geometry with the factors (geometry = \"reflection\", --shg reflection:45), or "
+         "transmission without them");
+  m.local_field.applied = true;
+  if (!indices) return;
+  if (!m.incidence_deg)
+    fail(ErrorKind::bad_geometry, "refractive indices need a fixed angle of incidence (the factors depend on it)", where,
+         "a fixed angle 0, 15, ..., 75 (incidence = 45, --shg reflection:45); or the factors as symbols only "
+         "(local_field = true or --shg-local-field, without indices)");
+  m.local_field.indices = indices;
+  m.local_field.values = local_field_values(*indices, *m.incidence_deg, where);
+}
+
 ChannelVectors channel_vectors(const OpticalMeasurement& m, const OpticalChannel& c) {
   ThetaTrig cth, sth;
   if (m.incidence_deg) {
@@ -192,6 +229,17 @@ ChannelVectors channel_vectors(const OpticalMeasurement& m, const OpticalChannel
   lab.e_out = combine(cos_or_var(c.out, Angle::analyser), p_out, sin_or_var(c.out, Angle::analyser), s_lab);
   lab.k_in = k_in;
   lab.k_out = k_out;
+  if (m.local_field.applied) {
+    // At normal incidence S and P are the same wave turned by 90° about the
+    // normal, so the in-plane factors are one: L_y = L_x. Independent symbols
+    // would let a channel that cancels between x and y (a 45° polariser) radiate.
+    const bool normal = m.incidence_deg && *m.incidence_deg == 0;
+    for (int i = 0; i < 3; ++i) {
+      const int axis = normal && i == 1 ? 0 : i;
+      lab.e_in[i] = lab.e_in[i] * ThetaTrig::local_field(axis);
+      lab.e_out[i] = lab.e_out[i] * ThetaTrig::local_field(3 + axis);
+    }
+  }
   // The sample turned by +φ about n: lab vectors seen in the sample frame are turned by -φ.
   TrigPoly cp, sp;
   if (m.azimuth_rotating) {
@@ -219,6 +267,10 @@ bool is_shg_part(const ResponsePart& part) {
     else if (r != "P" && r != "M" && r != "Q" && r != "k") return false;
   }
   return drives == 2;
+}
+
+bool is_dipole_shg_part(const ResponsePart& part) {
+  return is_shg_part(part) && part.indices == std::vector<std::string>{"P", "light", "light"};
 }
 
 bool ChannelAmplitude::radiates() const {
@@ -287,7 +339,7 @@ bool display_order(const Harmonic& a, const Harmonic& b) {
 } // namespace
 
 std::vector<OpticalTerm> optical_terms(const ChannelAmplitude& a) {
-  std::map<Harmonic, std::map<std::pair<int, int>, std::map<int, Surd>>> acc;
+  std::map<Harmonic, std::map<OpticalMonomial, std::map<int, Surd>>> acc;
   for (std::size_t j = 0; j < a.per_parameter.size(); ++j)
     for (const auto& [key, poly] : a.per_parameter[j].terms())
       for (const auto& [h, c] : real_form(poly)) acc[h][key][static_cast<int>(j)] += c;
@@ -331,10 +383,12 @@ std::string harmonic_text(const Harmonic& h, bool latex) {
   return angle_function_text(t, latex);
 }
 
-double theta_trig_value(const ThetaTrig& f, double theta, const std::array<double, angle_count>& radians) {
-  double sum = 0;
+Complex theta_trig_value(const ThetaTrig& f, double theta, const std::array<double, angle_count>& radians,
+                         const std::array<Complex, local_field_symbol_count>& factors) {
+  Complex sum = 0;
   for (const auto& [key, poly] : f.terms()) {
-    double mono = std::pow(std::cos(theta), key.first) * std::pow(std::sin(theta), key.second);
+    Complex mono = std::pow(std::cos(theta), key.cos_theta) * std::pow(std::sin(theta), key.sin_theta);
+    for (int i = 0; i < local_field_symbol_count; ++i) mono *= std::pow(factors[i], key.field[i]);
     double v = 0;
     for (const auto& [k, c] : poly.terms()) {
       double arg = 0;

@@ -28,6 +28,7 @@
 #pragma once
 
 #include "geometry/angle_series.hpp"
+#include "geometry/local_field.hpp"
 #include "response/response_catalogue.hpp"
 
 #include <array>
@@ -39,25 +40,40 @@
 
 namespace ts {
 
+// cos^a θ sin^b θ times a product of powers of the local-field symbols
+// (local_field.hpp; all powers zero when no factors are applied).
+struct OpticalMonomial {
+  int cos_theta = 0, sin_theta = 0;
+  std::array<int, local_field_symbol_count> field{};
+  friend bool operator<(const OpticalMonomial& a, const OpticalMonomial& b) {
+    if (a.cos_theta != b.cos_theta) return a.cos_theta < b.cos_theta;
+    if (a.sin_theta != b.sin_theta) return a.sin_theta < b.sin_theta;
+    return a.field < b.field;
+  }
+  friend OpticalMonomial operator*(const OpticalMonomial& a, const OpticalMonomial& b);
+};
+
 // A trigonometric polynomial that also depends on θ through cos^a θ sin^b θ,
 // b = 0 or 1 (sin²θ is rewritten as 1 - cos²θ, so the representation is
-// canonical and is_zero() is exact).
+// canonical and is_zero() is exact), and polynomially on the local-field
+// symbols, which are independent of everything else: a zero is exact for
+// every value of the factors.
 class ThetaTrig {
 public:
   ThetaTrig() = default;
   ThetaTrig(const TrigPoly& p); // NOLINT: a polynomial without θ
   static ThetaTrig cos_theta();
   static ThetaTrig sin_theta();
+  static ThetaTrig local_field(int symbol); // one factor L (local_field.hpp)
   bool is_zero() const { return terms_.empty(); }
-  // Key: (power of cos θ, power of sin θ).
-  const std::map<std::pair<int, int>, TrigPoly>& terms() const { return terms_; }
+  const std::map<OpticalMonomial, TrigPoly>& terms() const { return terms_; }
   friend ThetaTrig operator+(const ThetaTrig& a, const ThetaTrig& b);
   friend ThetaTrig operator*(const ThetaTrig& a, const ThetaTrig& b);
   ThetaTrig scaled(const Surd& s) const;
 
 private:
-  void add(std::pair<int, int> key, const TrigPoly& p);
-  std::map<std::pair<int, int>, TrigPoly> terms_;
+  void add(OpticalMonomial key, const TrigPoly& p);
+  std::map<OpticalMonomial, TrigPoly> terms_;
 };
 
 using OpticalVector = std::array<ThetaTrig, 3>;
@@ -81,6 +97,14 @@ struct OpticalChannel {
 // "rotating-P", "45-S".
 OpticalChannel parse_optical_channel(const std::string& text, const std::string& where);
 
+// Fresnel / local-field factors of a setup (local_field.hpp): off, as
+// symbols only, or as symbols with numbers from refractive indices.
+struct LocalFieldSetting {
+  bool applied = false;
+  std::optional<RefractiveIndices> indices;
+  std::array<Complex, local_field_symbol_count> values{}; // when indices are given
+};
+
 struct OpticalMeasurement {
   std::string name;
   OpticsMode mode = OpticsMode::reflection;
@@ -88,6 +112,7 @@ struct OpticalMeasurement {
   bool azimuth_rotating = true;     // the sample turns about its normal
   int azimuth_deg = 0;              // fixed azimuth otherwise (multiple of 15)
   std::vector<OpticalChannel> channels;
+  LocalFieldSetting local_field;
   std::string where;
 };
 
@@ -99,7 +124,15 @@ OpticalMeasurement make_optical_measurement(const std::string& name, const std::
                                             const std::string& incidence, const std::string& azimuth,
                                             const std::vector<std::string>& channels, const std::string& where);
 
-// The unit vectors of one channel, in the sample frame.
+// Turns the factors on for a measurement, as symbols, and with numbers when
+// indices are given. The two-medium model is one of reflection at a fixed
+// angle of incidence, so transmission, a variable θ with indices, or a
+// factor that vanishes throw Error(bad_geometry) naming `where`.
+void apply_local_field(OpticalMeasurement& m, const std::optional<RefractiveIndices>& indices, const std::string& where);
+
+// The unit vectors of one channel, in the sample frame. With local-field
+// factors, e_in carries L(ω) and e_out L(2ω) on their lab components (the
+// wave vectors carry none: only electric-dipole sources take factors).
 struct ChannelVectors {
   OpticalVector e_in, e_out, k_in, k_out;
 };
@@ -121,7 +154,7 @@ ChannelAmplitude shg_amplitude(const ResponsePart& part, const AllowedForm& form
 struct OpticalTerm {
   Frequency k{};
   bool sine = false;
-  std::map<std::pair<int, int>, Combination> by_theta;
+  std::map<OpticalMonomial, Combination> by_theta;
 };
 std::vector<OpticalTerm> optical_terms(const ChannelAmplitude& a);
 
@@ -141,7 +174,11 @@ std::vector<Harmonic> product_harmonics(const ChannelAmplitude& a, const Channel
 std::string harmonic_text(const Harmonic& h, bool latex = false); // "1", "cos(6phi)"
 
 // The value of one parameter's function at given angles (θ, then the Fourier
-// angles in radians), for sampling curves.
-double theta_trig_value(const ThetaTrig& f, double theta, const std::array<double, angle_count>& radians);
+// angles in radians) and values of the local-field factors, for sampling curves.
+Complex theta_trig_value(const ThetaTrig& f, double theta, const std::array<double, angle_count>& radians,
+                         const std::array<Complex, local_field_symbol_count>& factors);
+// Whether a part is an electric-dipole source (roles P, light, light), the one
+// kind the local-field factors are defined for here.
+bool is_dipole_shg_part(const ResponsePart& part);
 
 } // namespace ts

@@ -106,8 +106,8 @@ void optics_section(const ScenarioResult& r, std::ostream& os) {
   for (const auto& s : r.shg) {
     const OpticalMeasurement& m = s.measurement;
     os << "<h3>Second-harmonic polarimetry: " << esc(m.name) << "</h3>\n<p>" << esc(optical_setup_text(m))
-       << ". Channels input-output; amplitudes exact up to one prefactor per source kind; no Fresnel or local-field "
-          "factors.</p>\n";
+       << ". Channels input-output; amplitudes exact up to one prefactor per source kind; "
+       << esc(local_field_text(m)) << ".</p>\n";
     for (const auto& src : s.sources) {
       const PartForms& p = r.parts[src.part];
       const AllowedForm& form = p.forms.back();

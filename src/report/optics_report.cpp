@@ -74,6 +74,30 @@ std::string optical_setup_text(const OpticalMeasurement& m) {
   return s;
 }
 
+std::string local_field_text(const OpticalMeasurement& m, bool latex) {
+  const LocalFieldSetting& lf = m.local_field;
+  auto words = [&](const std::string& s) { return latex ? latex_escape(s) : s; };
+  if (!lf.applied) return words("no Fresnel or local-field factors are applied");
+  auto symbol = [&](int i) { return latex ? "$" + local_field_symbol_name(i, true) + "$" : local_field_symbol_name(i); };
+  auto three = [&](int first) { return symbol(first) + ", " + symbol(first + 1) + ", " + symbol(first + 2); };
+  std::string s = words("Fresnel / local-field factors are applied, as symbols: the lab components x, y, z of the "
+                        "driving field carry ") +
+                  three(0) + words(" and those of the radiated field ") + three(3) +
+                  words(" (x in the plane of incidence, z along the normal); which channels are dark does not depend "
+                        "on their values");
+  if (m.incidence_deg && *m.incidence_deg == 0)
+    s += words("; at normal incidence S and P are the same wave, so the in-plane factors coincide and the amplitudes "
+               "write ") + symbol(1) + words(" as ") + symbol(0) + words(" and ") + symbol(4) + words(" as ") + symbol(3);
+  if (!lf.indices) return s + words("; no refractive indices are given, so they have no numbers");
+  const RefractiveIndices& n = *lf.indices;
+  s += words("; their values in the two-medium Fresnel model at θ = " + std::to_string(*m.incidence_deg) +
+             "° with n_ambient = " + n.ambient.text + ", n(ω) = " + n.omega.text + ", n(2ω) = " + n.two_omega.text +
+             " are ");
+  for (int i = 0; i < local_field_symbol_count; ++i)
+    s += (i ? ", " : "") + symbol(i) + " = " + words(complex_text(lf.values[i]));
+  return s + words(" (numbers for display and figures only)");
+}
+
 std::string write_shg(const ScenarioResult& r, Format f) {
   std::ostringstream os;
   for (const auto& s : r.shg) {
@@ -81,9 +105,9 @@ std::string write_shg(const ScenarioResult& r, Format f) {
     os << heading("Second-harmonic polarimetry: " + m.name, f);
     os << prose(optical_setup_text(m), f) << "." << line(f);
     os << prose("Channels are named input-output (PS: P-polarised in, S-polarised analysed); a polariser angle is "
-                "measured from P towards S. Amplitudes are exact up to one prefactor per source kind; no Fresnel or "
-                "local-field factors are applied. The intensity is the squared modulus of A, with complex parameters.", f)
-       << "\n\n";
+                "measured from P towards S. Amplitudes are exact up to one prefactor per source kind; ", f)
+       << local_field_text(m, f == Format::latex)
+       << prose(". The intensity is the squared modulus of A, with complex parameters.", f) << "\n\n";
     for (const auto& src : s.sources) {
       os << (f == Format::markdown ? "**" : "") << prose(source_title(r, src), f) << (f == Format::markdown ? "**" : "")
          << "\n\n";
@@ -193,6 +217,29 @@ toml::array kerr_json(const ScenarioResult& r) {
   return out;
 }
 
+namespace {
+
+toml::table local_field_json(const LocalFieldSetting& lf) {
+  toml::array symbols, symbols_latex;
+  for (int i = 0; i < local_field_symbol_count; ++i) {
+    symbols.push_back(local_field_symbol_name(i));
+    symbols_latex.push_back(local_field_symbol_name(i, true));
+  }
+  toml::table t{{"symbols", symbols}, {"symbols_latex", symbols_latex}};
+  if (!lf.indices) return t;
+  toml::table values;
+  for (int i = 0; i < local_field_symbol_count; ++i)
+    values.insert(local_field_symbol_name(i), toml::table{{"re", lf.values[i].real()}, {"im", lf.values[i].imag()}});
+  t.insert("model", "two-medium Fresnel transmission");
+  t.insert("n_ambient", lf.indices->ambient.text);
+  t.insert("n_omega", lf.indices->omega.text);
+  t.insert("n_2omega", lf.indices->two_omega.text);
+  t.insert("values", values);
+  return t;
+}
+
+} // namespace
+
 toml::array shg_json(const ScenarioResult& r) {
   toml::array out;
   for (const auto& s : r.shg) {
@@ -234,12 +281,13 @@ toml::array shg_json(const ScenarioResult& r) {
     toml::table t{{"name", m.name},
                   {"geometry", optics_mode_name(m.mode)},
                   {"azimuth", m.azimuth_rotating ? std::string("rotating") : std::to_string(m.azimuth_deg)},
-                  {"local_field_factors", false},
+                  {"local_field_factors", m.local_field.applied},
                   {"sources", sources},
                   {"interference", interference},
                   {"dark_channels", dark}};
     if (m.incidence_deg) t.insert("incidence_deg", static_cast<std::int64_t>(*m.incidence_deg));
     else t.insert("incidence_deg", "any");
+    if (m.local_field.applied) t.insert("local_field", local_field_json(m.local_field));
     out.push_back(t);
   }
   return out;

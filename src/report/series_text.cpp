@@ -16,16 +16,24 @@ std::string times(TextStyle style) { return style == TextStyle::latex ? " " : "*
 // "(a + b)" for a sum, "a" for a single signed term.
 std::string grouped(const std::string& s, std::size_t parts) { return parts > 1 ? "(" + s + ")" : s; }
 
-std::string theta_power(const std::pair<int, int>& key, TextStyle style) {
+// The local-field factors first, then the powers of cos θ and sin θ.
+std::string theta_power(const OpticalMonomial& key, TextStyle style) {
   std::string out;
+  for (int i = 0; i < local_field_symbol_count; ++i) {
+    const int n = key.field[i];
+    if (n == 0) continue;
+    if (!out.empty()) out += times(style);
+    if (style == TextStyle::latex) out += local_field_symbol_name(i, true) + (n > 1 ? "^{" + std::to_string(n) + "}" : "");
+    else out += local_field_symbol_name(i) + (n > 1 ? "^" + std::to_string(n) : "");
+  }
   auto one = [&](const char* fn, int n) {
     if (n == 0) return;
     if (!out.empty()) out += times(style);
     if (style == TextStyle::latex) out += std::string("\\") + fn + (n > 1 ? "^{" + std::to_string(n) + "}" : "") + "\\theta";
     else out += std::string(fn) + "(theta)" + (n > 1 ? "^" + std::to_string(n) : "");
   };
-  one("cos", key.first);
-  one("sin", key.second);
+  one("cos", key.cos_theta);
+  one("sin", key.sin_theta);
   return out;
 }
 

@@ -1,6 +1,7 @@
 #include "scenario/scenario.hpp"
 
 #include "core/error.hpp"
+#include "core/text.hpp"
 #include "group/group_catalogue.hpp"
 #include "lowering/structure_file.hpp"
 #include "response/response_catalogue.hpp"
@@ -9,6 +10,7 @@
 #include <toml++/toml.h>
 
 #include <cmath>
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -161,14 +163,7 @@ ShgSpec parse_shg_option(const std::string& text, const std::string& where) {
   ShgSpec s;
   s.where = where;
   s.name = "SHG (" + text + ")";
-  std::vector<std::string> fields;
-  std::size_t start = 0;
-  while (true) {
-    std::size_t colon = text.find(':', start);
-    fields.push_back(text.substr(start, colon == std::string::npos ? std::string::npos : colon - start));
-    if (colon == std::string::npos) break;
-    start = colon + 1;
-  }
+  const std::vector<std::string> fields = split(text, ':');
   if (fields.size() > 3)
     fail(ErrorKind::usage, "'" + text + "' has more than three fields", where,
          "GEOMETRY[:INCIDENCE[:AZIMUTH]], e.g. reflection:45:rotating or transmission:0");
@@ -176,6 +171,19 @@ ShgSpec parse_shg_option(const std::string& text, const std::string& where) {
   if (fields.size() > 1 && !fields[1].empty()) s.incidence = fields[1];
   if (fields.size() > 2 && !fields[2].empty()) s.azimuth = fields[2];
   return s;
+}
+
+RefractiveIndices parse_indices_option(const std::string& text, const std::string& where) {
+  const std::vector<std::string> fields = split(text, ',');
+  if (fields.size() != 2 && fields.size() != 3)
+    fail(ErrorKind::usage, "'" + text + "' is not a list of two or three refractive indices", where,
+         "N_AMBIENT,N_OMEGA,N_2OMEGA or N_OMEGA,N_2OMEGA (ambient 1), e.g. 1,2.2+0.01i,2.3+0.05i");
+  RefractiveIndices n;
+  std::size_t k = 0;
+  if (fields.size() == 3) n.ambient = parse_refractive_index(fields[k++], true, ErrorKind::usage, where + " (ambient)");
+  n.omega = parse_refractive_index(fields[k++], false, ErrorKind::usage, where + " (n at omega)");
+  n.two_omega = parse_refractive_index(fields[k], false, ErrorKind::usage, where + " (n at 2 omega)");
+  return n;
 }
 
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where) {
@@ -267,7 +275,6 @@ void read_layouts(const toml::table& root, const std::string& path, Scenario& sc
     sc.layouts.push_back(l);
   }
 }
-
 // An angle key that may be a whole number of degrees or a word ("any", "rotating").
 std::string get_angle(const toml::table& t, const char* key, const std::string& file, const char* valid) {
   auto node = t.get(key);
@@ -275,6 +282,47 @@ std::string get_angle(const toml::table& t, const char* key, const std::string& 
   if (auto v = node->value_exact<int64_t>()) return std::to_string(*v);
   if (auto v = node->value<std::string>()) return *v;
   fail(ErrorKind::bad_file, std::string("'") + key + "' must be whole degrees or a word", at(file, node->source()), valid);
+}
+
+// A refractive index key: a TOML number or a string such as "2.2+0.01i".
+std::optional<RefractiveIndex> get_index(const toml::table& t, const char* key, bool ambient, const std::string& file) {
+  auto node = t.get(key);
+  if (!node) return std::nullopt;
+  const std::string where = at(file, node->source()) + ": " + key;
+  if (auto v = node->value_exact<double>()) {
+    char text[32]; // 15 significant digits: the number as written, without binary noise
+    std::snprintf(text, sizeof text, "%.15g", *v);
+    return parse_refractive_index(text, ambient, ErrorKind::bad_file, where);
+  }
+  if (auto v = node->value_exact<int64_t>()) return parse_refractive_index(std::to_string(*v), ambient, ErrorKind::bad_file, where);
+  if (auto v = node->value<std::string>()) return parse_refractive_index(*v, ambient, ErrorKind::bad_file, where);
+  fail(ErrorKind::bad_file, std::string("'") + key + "' must be a refractive index", where,
+       "a number, or a string such as \"2.2+0.01i\"");
+}
+
+void read_local_field(const toml::table& t, const std::string& path, ShgSpec& s) {
+  auto flag = t.get("local_field");
+  if (flag) {
+    auto v = flag->value_exact<bool>();
+    if (!v) fail(ErrorKind::bad_file, "'local_field' must be true or false", at(path, flag->source()), "local_field = true");
+    s.local_field = *v;
+  }
+  auto ambient = get_index(t, "n_ambient", true, path);
+  auto omega = get_index(t, "n_omega", false, path);
+  auto two_omega = get_index(t, "n_2omega", false, path);
+  if (!ambient && !omega && !two_omega) return;
+  if (!omega || !two_omega)
+    fail(ErrorKind::bad_file, "refractive indices need both n_omega and n_2omega", at(path, t.source()),
+         "n_omega = \"2.2+0.01i\" and n_2omega = \"2.3+0.05i\" (n_ambient optional, default 1)");
+  if (flag && !s.local_field)
+    fail(ErrorKind::bad_file, "refractive indices given with local_field = false", at(path, flag->source()),
+         "drop local_field (indices turn the factors on) or drop the indices");
+  RefractiveIndices n;
+  if (ambient) n.ambient = *ambient;
+  n.omega = *omega;
+  n.two_omega = *two_omega;
+  s.indices = n;
+  s.local_field = true;
 }
 
 void read_shg(const toml::table& root, const std::string& path, Scenario& sc) {
@@ -285,7 +333,9 @@ void read_shg(const toml::table& root, const std::string& path, Scenario& sc) {
   for (auto& el : *arr) {
     auto t = el.as_table();
     if (!t) fail(ErrorKind::bad_file, "each [[shg]] entry must be a table", at(path, el.source()));
-    check_keys(*t, {"name", "geometry", "incidence", "azimuth", "channels", "responses"}, path, "[[shg]]");
+    check_keys(*t, {"name", "geometry", "incidence", "azimuth", "channels", "responses", "local_field", "n_ambient",
+                    "n_omega", "n_2omega"},
+               path, "[[shg]]");
     ShgSpec s;
     s.where = at(path, t->source());
     s.name = get_string(*t, "name", path, false, "a string");
@@ -298,6 +348,7 @@ void read_shg(const toml::table& root, const std::string& path, Scenario& sc) {
     if (!az.empty()) s.azimuth = az;
     s.channels = get_strings(*t, "channels", path);
     s.responses = get_strings(*t, "responses", path);
+    read_local_field(*t, path, s);
     sc.shg.push_back(s);
   }
 }

@@ -8,6 +8,7 @@
 
 #include "core/error.hpp"
 #include "geometry/lattice_metric.hpp"
+#include "geometry/local_field.hpp"
 #include "lowering/structure_symmetry.hpp"
 
 #include <map>
@@ -81,6 +82,8 @@ struct ShgSpec {
   std::string azimuth = "rotating";     // "rotating" or a fixed sample azimuth in degrees (multiple of 15)
   std::vector<std::string> channels;    // empty: PP, PS, SP, SS
   std::vector<std::string> responses;   // catalogue ids; empty: every SHG response of the scenario
+  bool local_field = false;             // Fresnel / local-field factors as symbols (docs/optics.md)
+  std::optional<RefractiveIndices> indices; // their numbers; given indices turn the factors on
   std::string where;
 };
 
@@ -144,6 +147,9 @@ BarSpec parse_bar_option(const std::string& text, const std::string& where);
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where);
 // "--shg reflection:45:rotating" -> geometry, incidence (default any), azimuth (default rotating).
 ShgSpec parse_shg_option(const std::string& text, const std::string& where);
+// "--shg-indices 1,2.2+0.01i,2.3+0.05i" -> the ambient, n(ω) and n(2ω); with two
+// values the ambient is 1.
+RefractiveIndices parse_indices_option(const std::string& text, const std::string& where);
 // "0.25", "1/4" or "1"; a fraction between 0 and 1, exactly. Throws Error(usage) naming `where`.
 Rational parse_fraction(const std::string& text, const std::string& where);
 

@@ -222,6 +222,7 @@ ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const Response
   ShgResult out;
   out.measurement =
       make_optical_measurement(spec.name, spec.geometry, spec.incidence, spec.azimuth, spec.channels, spec.where);
+  if (spec.local_field) apply_local_field(out.measurement, spec.indices, spec.where);
   for (const auto& id : spec.responses) responses.get(id); // unknown ids fail here, with the closest ids
   for (std::size_t k = 0; k < res.parts.size(); ++k) {
     const PartForms& p = res.parts[k];
@@ -230,6 +231,13 @@ ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const Response
           return responses.get(id).id == p.response_id;
         }))
       continue;
+    // The factors of a magnetic dipole, a quadrupole or a field gradient differ
+    // from those of the dipole; mixing them with bare amplitudes would mislead.
+    if (spec.local_field && !is_dipole_shg_part(*p.catalogue_part))
+      fail(ErrorKind::bad_geometry,
+           "local-field factors are defined for electric-dipole sources only, not for " + p.response_id + ": " +
+               p.part_label,
+           spec.where, "responses = [\"electric-dipole-shg\"] in this [[shg]] table (or --response electric-dipole-shg)");
     ShgSource src{k, {}};
     for (const auto& c : out.measurement.channels)
       src.channels.push_back(shg_amplitude(*p.catalogue_part, p.forms.back(), channel_vectors(out.measurement, c)));
