@@ -454,6 +454,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
     }
     std::vector<Rational> weights =
         sc.domain_fractions.empty() ? std::vector<Rational>(n, Rational(1, static_cast<std::int64_t>(n))) : sc.domain_fractions;
+    const std::string domain_symbol = n > 1 ? identify(h, cat).type->symbol : std::string();
     if (n > 1)
       for (std::size_t k = 0; k < res.parts.size(); ++k) {
         AllowedForm form = allowed_form(res.parts[k].spec, h, res.frame);
@@ -463,7 +464,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
           for (const auto& v : a.variants) tensors.push_back(v.tensor);
           a.average = weighted_sum(tensors, weights);
         }
-        DomainReport d{k, from, h, std::move(form), std::move(a), sc.domain_fractions, {}};
+        DomainReport d{k, from, h, domain_symbol, std::move(form), std::move(a), sc.domain_fractions, {}};
         for (const auto& f : fields) d.in_field.push_back(field_linear_term(top, h, res.parts[k].spec, f, res.frame, weights));
         res.domains.push_back(std::move(d));
       }
