@@ -1,5 +1,6 @@
 #include "report/optics_report.hpp"
 
+#include "geometry/optics_setup_text.hpp"
 #include "report/series_text.hpp"
 
 #include <sstream>
@@ -66,13 +67,6 @@ std::string delta_eps_name(const std::string& indices, Format f) {
 }
 
 } // namespace
-
-std::string optical_setup_text(const OpticalMeasurement& m) {
-  std::string s = optics_mode_name(m.mode);
-  s += m.incidence_deg ? ", angle of incidence θ = " + std::to_string(*m.incidence_deg) + "°" : ", angle of incidence θ (a variable)";
-  s += m.azimuth_rotating ? ", sample azimuth φ turning" : ", sample azimuth fixed at " + std::to_string(m.azimuth_deg) + "°";
-  return s;
-}
 
 std::string write_shg(const ScenarioResult& r, Format f) {
   std::ostringstream os;

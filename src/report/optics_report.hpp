@@ -21,7 +21,4 @@ toml::array shg_json(const ScenarioResult& r);
 std::string write_kerr(const ScenarioResult& r, Format f);
 toml::array kerr_json(const ScenarioResult& r);
 
-// "reflection, θ = 45°, sample azimuth φ turning" for a heading or caption.
-std::string optical_setup_text(const OpticalMeasurement& m);
-
 } // namespace ts
