@@ -16,6 +16,7 @@
 #include "report/screen_report.hpp"
 #include "report/response_report.hpp"
 #include "scenario/scenario_run.hpp"
+#include "scenario/scenario_table.hpp"
 #include "scenario/screening.hpp"
 
 #include <pybind11/pybind11.h>

@@ -1,67 +1,32 @@
-#include "scenario/scenario.hpp"
+#include "scenario/scenario_table.hpp"
 
 #include "core/error.hpp"
+#include "data/toml_read.hpp"
 #include "group/group_catalogue.hpp"
 #include "lowering/structure_file.hpp"
+#include "lowering/structure_table.hpp"
 #include "response/response_catalogue.hpp"
 #include "tensor/tensor_spec.hpp"
 
-#include <toml++/toml.h>
-
 #include <cmath>
 #include <filesystem>
-#include <fstream>
-#include <sstream>
 #include <set>
 
 namespace ts {
 
+using toml_read::at;
+using toml_read::check_at;
+using toml_read::check_keys;
+using toml_read::get_string;
+using toml_read::get_strings;
+using toml_read::position_of;
+
 namespace {
+
+const char* scenario_schema = "a TOML scenario file (schema in docs/scenarios.md)";
 
 const char* kinds_help =
     "strain, shear, polar, electric-field, moment, magnetic-field, current, magnetic-group, subgroup, tilts";
-
-std::string at(const std::string& file, const toml::source_region& s) {
-  if (s.begin.line == 0) return file; // a table built in memory (a Python dict) has no lines
-  return file + ":" + std::to_string(s.begin.line) + ":" + std::to_string(s.begin.column);
-}
-
-std::string get_string(const toml::table& t, const char* key, const std::string& file, bool required,
-                       const char* valid) {
-  auto node = t.get(key);
-  if (!node) {
-    if (required) fail(ErrorKind::bad_file, std::string("missing key '") + key + "'", at(file, t.source()), valid);
-    return {};
-  }
-  auto v = node->value<std::string>();
-  if (!v) fail(ErrorKind::bad_file, std::string("'") + key + "' must be a string", at(file, node->source()), valid);
-  return *v;
-}
-
-void check_keys(const toml::table& t, const std::set<std::string>& allowed, const std::string& file,
-                const std::string& section) {
-  for (const auto& [k, v] : t)
-    if (!allowed.count(std::string(k.str()))) {
-      std::string list;
-      for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
-      fail(ErrorKind::bad_file, "unknown key '" + std::string(k.str()) + "' in " + section, at(file, v.source()), list);
-    }
-}
-
-std::vector<std::string> get_strings(const toml::table& t, const char* key, const std::string& file) {
-  std::vector<std::string> out;
-  auto node = t.get(key);
-  if (!node) return out;
-  if (auto s = node->value<std::string>()) return {*s};
-  auto arr = node->as_array();
-  if (!arr) fail(ErrorKind::bad_file, std::string("'") + key + "' must be a string or an array of strings", at(file, node->source()));
-  for (auto& el : *arr) {
-    auto s = el.value<std::string>();
-    if (!s) fail(ErrorKind::bad_file, std::string("'") + key + "' must hold strings", at(file, el.source()));
-    out.push_back(*s);
-  }
-  return out;
-}
 
 std::optional<Rational> get_length(const toml::table& t, const char* key, const std::string& file) {
   auto node = t.get(key);
@@ -71,21 +36,6 @@ std::optional<Rational> get_length(const toml::table& t, const char* key, const 
     fail(ErrorKind::bad_file, std::string("lattice parameter '") + key + "' must be a positive number",
          at(file, node->source()), "a length in Angstrom, e.g. 3.905");
   return exact_decimal(*v, at(file, node->source()), ErrorKind::bad_file);
-}
-
-// Check a value where it is read, so its error names the file, line and column.
-template <typename Check>
-void check_at(const std::string& where, Check check) {
-  try {
-    check();
-  } catch (const Error& e) {
-    fail(e.kind(), e.problem(), e.location().empty() ? where : where + ": " + e.location(), e.valid());
-  }
-}
-
-std::string position_of(const toml::table& t, const char* key, const std::string& file) {
-  auto node = t.get(key);
-  return node ? at(file, node->source()) : file;
 }
 
 } // namespace
@@ -380,30 +330,11 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
 }
 
 Scenario load_scenario(const std::string& path) {
-  std::error_code ec;
-  auto status = std::filesystem::status(path, ec);
-  if (ec || !std::filesystem::exists(status))
-    fail(ErrorKind::bad_file, "no such file", path, "the path of a scenario TOML file (docs/scenarios.md)");
-  if (!std::filesystem::is_regular_file(status))
-    fail(ErrorKind::bad_file, std::filesystem::is_directory(status) ? "is a directory, not a scenario file"
-                                                                     : "is not a regular file",
-         path, "the path of a scenario TOML file (docs/scenarios.md)");
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream text;
-  text << in.rdbuf();
-  if (!in) fail(ErrorKind::bad_file, "cannot read the file", path, "a readable scenario TOML file");
-  return parse_scenario(text.str(), path);
+  return scenario_from_table(toml_read::parse_file(path, "scenario file", scenario_schema), path);
 }
 
 Scenario parse_scenario(const std::string& text, const std::string& path) {
-  toml::table root;
-  try {
-    root = toml::parse(text, path);
-  } catch (const toml::parse_error& e) {
-    fail(ErrorKind::bad_file, std::string(e.description()), at(path, e.source()),
-         "a TOML scenario file (schema in docs/scenarios.md)");
-  }
-  return scenario_from_table(root, path);
+  return scenario_from_table(toml_read::parse_text(text, path, scenario_schema), path);
 }
 
 Scenario scenario_from_table(const toml::table& root, const std::string& path) {

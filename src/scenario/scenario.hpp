@@ -11,7 +11,6 @@
 #include "lowering/structure_symmetry.hpp"
 
 #include <map>
-#include <toml++/toml.h>
 
 #include <optional>
 #include <string>
@@ -129,9 +128,7 @@ struct Scenario {
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
-// The same from a table already in memory (e.g. built from a Python dict);
-// `path` names it in messages, and relative structure files are read from its folder.
-Scenario scenario_from_table(const toml::table& root, const std::string& path);
+// From a TOML table already in memory: scenario/scenario_table.hpp.
 // The same from the text of a file; `path` names it in messages.
 Scenario parse_scenario(const std::string& text, const std::string& path);
 LoweringKind parse_lowering_kind(const std::string& text, const std::string& where, ErrorKind bad_value);
