@@ -99,6 +99,7 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
 BarSpec parse_bar_option(const std::string& text, const std::string& where) {
   BarSpec b;
   b.where = where;
+  b.bad_value = ErrorKind::usage;
   std::size_t colon = text.find(':');
   b.current = text.substr(0, colon);
   if (b.current.empty()) b.current = "rotating";
@@ -110,6 +111,7 @@ BarSpec parse_bar_option(const std::string& text, const std::string& where) {
 ShgSpec parse_shg_option(const std::string& text, const std::string& where) {
   ShgSpec s;
   s.where = where;
+  s.bad_value = ErrorKind::usage;
   s.name = "SHG (" + text + ")";
   std::vector<std::string> fields;
   std::size_t start = 0;
@@ -131,6 +133,7 @@ ShgSpec parse_shg_option(const std::string& text, const std::string& where) {
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where) {
   LayoutSpec l;
   l.where = where;
+  l.bad_value = ErrorKind::usage;
   std::size_t colon = text.find(':');
   l.response = text.substr(0, colon);
   if (colon != std::string::npos) {
@@ -304,7 +307,7 @@ void read_figures(const toml::table& root, const std::string& path, Scenario& sc
 
 } // namespace
 
-Rational parse_fraction(const std::string& text, const std::string& where) {
+Rational parse_fraction(const std::string& text, const std::string& where, ErrorKind bad_value) {
   const char* valid = "a volume fraction between 0 and 1: 0.25 or 1/4";
   Rational r;
   try {
@@ -313,7 +316,7 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
     if (slash == std::string::npos) {
       double v = std::stod(text, &used);
       if (used != text.size()) throw std::invalid_argument(text);
-      r = exact_decimal(v, where, ErrorKind::usage);
+      r = exact_decimal(v, where, bad_value);
     } else {
       long long p = std::stoll(text.substr(0, slash), &used);
       if (used != slash) throw std::invalid_argument(text);
@@ -323,9 +326,9 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
       r = Rational(p, q);
     }
   } catch (const std::exception&) {
-    fail(ErrorKind::usage, "'" + text + "' is not a fraction", where, valid);
+    fail(bad_value, "'" + text + "' is not a fraction", where, valid);
   }
-  if (r < Rational(0) || Rational(1) < r) fail(ErrorKind::usage, "domain fraction " + text + " is outside [0, 1]", where, valid);
+  if (r < Rational(0) || Rational(1) < r) fail(bad_value, "domain fraction " + text + " is outside [0, 1]", where, valid);
   return r;
 }
 
@@ -454,8 +457,8 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
       if (!arr) fail(ErrorKind::bad_file, "'domain_fractions' must be an array", sc.fractions_where, "[0.75, 0.25] or [\"2/3\", \"1/3\"]");
       for (auto& el : *arr) {
         std::string where = at(path, el.source());
-        if (auto text = el.value<std::string>()) sc.domain_fractions.push_back(parse_fraction(*text, where));
-        else if (auto num = el.value<double>()) sc.domain_fractions.push_back(parse_fraction(std::to_string(*num), where));
+        if (auto text = el.value<std::string>()) sc.domain_fractions.push_back(parse_fraction(*text, where, ErrorKind::bad_file));
+        else if (auto num = el.value<double>()) sc.domain_fractions.push_back(parse_fraction(std::to_string(*num), where, ErrorKind::bad_file));
         else fail(ErrorKind::bad_file, "a domain fraction must be a number or a string such as \"1/3\"", where);
       }
       if (!sc.domains)

@@ -43,6 +43,7 @@ struct BarSpec {
   std::optional<double> current_rms, length, width, thickness; // A, m
   std::vector<std::string> responses; // catalogue ids; empty: every response of the scenario
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // Which bars to pattern for one response at one harmonic (layout_design.hpp).
@@ -53,6 +54,7 @@ struct LayoutSpec {
   std::vector<int> rosette;            // bar angles from sample x in degrees (multiples of 15)
   std::vector<std::string> fields;     // field geometries per bar; empty: along, across, normal for field parts
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // An observed signal for the inverse question (`tensorsieve observe`): the
@@ -81,6 +83,7 @@ struct ShgSpec {
   std::vector<std::string> channels;    // empty: PP, PS, SP, SS
   std::vector<std::string> responses;   // catalogue ids; empty: every SHG response of the scenario
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // A magneto-optic question (docs/optics.md): the Kerr geometries the final
@@ -89,6 +92,7 @@ struct KerrSpec {
   std::string name;
   std::string magnetisation = "in-plane"; // in-plane, normal, any, [uvw], in-plane:ANGLE
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // Figures of the scenario (docs/figures.md): illustrative parameter values,
@@ -142,6 +146,6 @@ LayoutSpec parse_layout_option(const std::string& text, const std::string& where
 // "--shg reflection:45:rotating" -> geometry, incidence (default any), azimuth (default rotating).
 ShgSpec parse_shg_option(const std::string& text, const std::string& where);
 // "0.25", "1/4" or "1"; a fraction between 0 and 1, exactly. Throws Error(usage) naming `where`.
-Rational parse_fraction(const std::string& text, const std::string& where);
+Rational parse_fraction(const std::string& text, const std::string& where, ErrorKind bad_value);
 
 } // namespace ts
