@@ -67,7 +67,7 @@ std::string get_string(const toml::table& t, const char* key, const std::string&
     return {};
   }
   auto v = node->value<std::string>();
-  if (!v) fail(ErrorKind::bad_file, field(key, table) + ": must be a string", at(file, node->source()), valid);
+  if (!v) fail(ErrorKind::bad_file, field(key, table) + " must be a string", at(file, node->source()), valid);
   return *v;
 }
 
@@ -83,10 +83,10 @@ std::vector<std::string> get_strings(const toml::table& t, const char* key, cons
   if (single)
     if (auto s = node->value<std::string>()) return {*s};
   const toml::array* arr = node->as_array();
-  if (!arr) fail(ErrorKind::bad_file, field(key, table) + ": must be " + expected, at(file, node->source()), "[\"...\", \"...\"]");
+  if (!arr) fail(ErrorKind::bad_file, field(key, table) + " must be " + expected, at(file, node->source()), "[\"...\", \"...\"]");
   for (const auto& el : *arr) {
     auto s = el.value<std::string>();
-    if (!s) fail(ErrorKind::bad_file, field(key, table) + ": must hold strings", at(file, el.source()));
+    if (!s) fail(ErrorKind::bad_file, field(key, table) + " must hold strings", at(file, el.source()));
     out.push_back(*s);
   }
   return out;
@@ -96,7 +96,7 @@ std::optional<bool> get_bool(const toml::table& t, const char* key, const std::s
   const toml::node* node = t.get(key);
   if (!node) return std::nullopt;
   auto v = node->value<bool>();
-  if (!v) fail(ErrorKind::bad_file, field(key, table) + ": must be true or false", at(file, node->source()));
+  if (!v) fail(ErrorKind::bad_file, field(key, table) + " must be true or false", at(file, node->source()));
   return *v;
 }
 

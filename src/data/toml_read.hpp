@@ -33,7 +33,8 @@ const char* type_name(const toml::node& n);
 
 // The typed readers below name a key as 'key' and, when `table` is given,
 // "'key' in [sample]": the field path a person finds in the file. Messages read
-// "'key' in table: problem", "missing key 'key' in table", "unknown key 'key' in table".
+// "'key' in table must be a string", "missing key 'key' in table", "unknown key
+// 'key' in table", and Table::error gives "'key' in table: problem".
 std::string field(const char* key, const std::string& table);
 
 // A string; missing is an error when `required`, else "".
@@ -47,7 +48,7 @@ T get_required(const toml::table& t, const char* key, const std::string& file, c
   const toml::node* node = t.get(key);
   if (!node) fail(ErrorKind::bad_file, "missing key " + field(key, table), at(file, t.source()), expected);
   auto v = node->value<T>();
-  if (!v) fail(ErrorKind::bad_file, field(key, table) + ": must be " + expected, at(file, node->source()), expected);
+  if (!v) fail(ErrorKind::bad_file, field(key, table) + " must be " + expected, at(file, node->source()), expected);
   return *v;
 }
 // A string or an array of strings (a single string is a list of one when `single`).

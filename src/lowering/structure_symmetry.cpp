@@ -19,8 +19,6 @@ namespace {
 using Mat = std::array<std::array<double, 3>, 3>;
 using IMat = std::array<std::array<int, 3>, 3>;
 
-const char* const kBlockKeys = "lattice (or a, b, c, alpha, beta, gamma), sites, symprec";
-const char* const kSiteKeys = "species, at, moment";
 const char* const kSpglibValid =
     "atoms of one species further apart than symprec (merge duplicates or lower symprec); a structure that is "
     "only nearly symmetric may need a larger symprec";
@@ -167,9 +165,9 @@ Mat read_lattice(const toml::table& block, const std::string& where) {
 }
 
 void reject_unknown_keys(const toml::table& t, const std::set<std::string>& known, const std::string& where,
-                         const std::string& table, const char* valid) {
+                         const std::string& table) {
   const std::string file = t.source().path && !t.source().path->empty() ? *t.source().path : where;
-  toml_read::check_keys(t, known, file, table, std::string("(") + valid + ")");
+  toml_read::check_keys(t, known, file, table);
 }
 
 AtomSite read_site(const toml::node& n, std::size_t index, const std::string& where, bool* has_moment) {
@@ -178,7 +176,7 @@ AtomSite read_site(const toml::node& n, std::size_t index, const std::string& wh
                             "moment = [mx, my, mz] (Cartesian, optional) }";
   const toml::table* t = n.as_table();
   if (!t) bad(where, &n, name, std::string("expected a table, got ") + type_name(n), valid);
-  reject_unknown_keys(*t, {"species", "at", "moment"}, where, name, kSiteKeys);
+  reject_unknown_keys(*t, {"species", "at", "moment"}, where, name);
   AtomSite site;
   const toml::node* sp = t->get("species");
   if (!sp) bad(where, t, name + ".species", "missing", valid);
@@ -259,8 +257,8 @@ std::array<double, 3> fractional_to_cartesian(const CrystalStructure& cell, cons
 }
 
 CrystalStructure parse_structure(const toml::table& block, const std::string& where) {
-  reject_unknown_keys(block, {"lattice", "a", "b", "c", "alpha", "beta", "gamma", "sites", "symprec"}, where, "the structure",
-                      kBlockKeys);
+  reject_unknown_keys(block, {"lattice", "a", "b", "c", "alpha", "beta", "gamma", "sites", "symprec"}, where,
+                      "the structure");
   CrystalStructure cell;
   cell.where = where;
   cell.lattice = read_lattice(block, where);
