@@ -13,7 +13,7 @@
 
 #include "lowering/glazer_tilts.hpp"
 #include "lowering/structure_file.hpp"
-#include "lowering/structure_symmetry.hpp"
+#include "lowering/structure_table.hpp"
 #include "scenario/screening.hpp"
 
 #include <cmath>

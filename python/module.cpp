@@ -14,8 +14,9 @@
 #include "report/json_text.hpp"
 #include "report/scenario_report.hpp"
 #include "report/screen_report.hpp"
-#include "response/response_report.hpp"
+#include "report/response_report.hpp"
 #include "scenario/scenario_run.hpp"
+#include "scenario/scenario_table.hpp"
 #include "scenario/screening.hpp"
 
 #include <pybind11/pybind11.h>
@@ -94,7 +95,7 @@ py::object form(const std::string& group, const std::string& spec, const std::st
 
 py::object group(const std::string& symbol, bool subgroups, bool colourless) {
   const auto& cat = GroupCatalogue::builtin();
-  return parse_json(write_group_description(named(symbol, colourless), subgroups, cat, Format::json));
+  return parse_json(write_group_description(describe_group(named(symbol, colourless), subgroups, cat), Format::json));
 }
 
 // The operations of a group as exact matrices (entries as strings sympy

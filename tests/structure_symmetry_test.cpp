@@ -1,6 +1,6 @@
 // Structure -> point operations through spglib, and the [structure] TOML block.
 #include "core/error.hpp"
-#include "lowering/structure_symmetry.hpp"
+#include "lowering/structure_table.hpp"
 
 #include <catch2/catch.hpp>
 #include <spglib.h>
@@ -421,7 +421,7 @@ sites = [ { species = "K", at = [0, "half", 0] } ]
               .find("sites[1].moment") != std::string::npos);
     CHECK(parse_error(lat + "sites = [{ species = \"X\", at = [0, 0, 0], spin = [0, 0, 1] }]")
               .problem()
-              .find("sites[1].spin") != std::string::npos);
+              .find("unknown key 'spin' in sites[1]") != std::string::npos);
     const Error twice =
         parse_error(lat + "sites = [{ species = \"X\", at = [0, 0, 0] }, { species = \"Y\", at = [1, 0, 1] }]");
     CHECK(twice.problem().find("sites[2].at") != std::string::npos);

@@ -45,7 +45,7 @@ void setup_group(CLI::App& app) {
   cmd->callback([o] {
     const auto& cat = GroupCatalogue::builtin();
     const NamedGroup& g = cat.get(o->symbol, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
-    emit(o->out, write_group_description(g, o->subgroups, cat, parse_format(o->out.format)));
+    emit(o->out, write_group_description(describe_group(g, o->subgroups, cat), parse_format(o->out.format)));
   });
 }
 

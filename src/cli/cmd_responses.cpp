@@ -3,7 +3,7 @@
 #include "cli/frame_options.hpp"
 #include "core/error.hpp"
 #include "group/group_catalogue.hpp"
-#include "response/response_report.hpp"
+#include "report/response_report.hpp"
 
 #include <memory>
 

@@ -3,6 +3,7 @@
 #include "cli/figure_options.hpp"
 #include "cli/sample_options.hpp"
 #include "core/error.hpp"
+#include "geometry/bar_measurement.hpp"
 #include "lowering/structure_file.hpp"
 #include "report/scenario_report.hpp"
 
@@ -100,7 +101,7 @@ void setup_sample(CLI::App& app) {
     apply_figure_options(o->figures, sc);
     // Optical questions without --response ask for the responses they read.
     const bool default_responses = sc.responses.empty() && sc.tensors.empty();
-    for (const auto& k : o->kerr) sc.kerr.push_back({"magneto-optics (" + k + ")", k, "--kerr " + k});
+    for (const auto& k : o->kerr) sc.kerr.push_back({"magneto-optics (" + k + ")", k, "--kerr " + k, ErrorKind::usage});
     if (!o->kerr.empty() && default_responses)
       sc.responses = {"magneto-optic-kerr", "magnetic-linear-birefringence"};
     std::optional<RefractiveIndices> indices;
@@ -123,9 +124,12 @@ void setup_sample(CLI::App& app) {
     if (!sc.group.empty() && !o->structure_file.empty())
       fail(ErrorKind::usage, "give the parent crystal once: a point group or --structure-file", "group/--structure-file",
            "tensorsieve sample m-3m ..., or tensorsieve sample --structure-file crystal.mcif ...");
+    // Checked even without a file, so a mistyped word is never silently ignored.
+    const OccupancyPolicy occupancy = parse_occupancy_policy(o->occupancy, "--occupancy", ErrorKind::usage);
+    parse_waveform(o->waveform, "--waveform", ErrorKind::usage);
     if (!o->structure_file.empty()) {
       StructureFileOptions options;
-      options.occupancy = parse_occupancy_policy(o->occupancy, "--occupancy", ErrorKind::usage);
+      options.occupancy = occupancy;
       if (!(o->symprec > 0 && o->symprec < 1))
         fail(ErrorKind::usage, "symprec out of range", "--symprec", "0 < symprec < 1 Angstrom");
       options.symprec = o->symprec;

@@ -41,6 +41,7 @@ inline void apply_figure_options(const FigureOptions& o, Scenario& sc) {
   f.present = true;
   if (f.where.empty()) f.where = "--figure-value";
   if (!o.directory.empty()) f.directory = o.directory;
+  for (const auto& name : o.formats) parse_figure_format(name, "--figure-format");
   if (!o.formats.empty()) f.formats = o.formats;
   for (const auto& v : o.values) {
     const std::string where = "--figure-value " + v;

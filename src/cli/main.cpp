@@ -4,7 +4,7 @@
 #include "cli/commands.hpp"
 #include "core/error.hpp"
 #include "core/text.hpp"
-#include "report/output_file.hpp"
+#include "core/output_file.hpp"
 
 #include <iostream>
 #include <malloc.h>

@@ -60,7 +60,7 @@ inline void apply_fractions_option(const std::string& text, Scenario& sc) {
   while (start <= text.size()) {
     std::size_t comma = text.find(',', start);
     std::string item = text.substr(start, comma == std::string::npos ? std::string::npos : comma - start);
-    sc.domain_fractions.push_back(parse_fraction(item, sc.fractions_where));
+    sc.domain_fractions.push_back(parse_fraction(item, sc.fractions_where, ErrorKind::usage));
     if (comma == std::string::npos) break;
     start = comma + 1;
   }

@@ -1,7 +1,7 @@
 #include "figure/figure_draw.hpp"
 
 #include "core/error.hpp"
-#include "report/output_file.hpp"
+#include "core/output_file.hpp"
 
 #include <cairo-pdf.h>
 #include <cairo-svg.h>

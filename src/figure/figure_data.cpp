@@ -1,7 +1,7 @@
 #include "figure/figure_data.hpp"
 
 #include "core/error.hpp"
-#include "report/optics_report.hpp"
+#include "geometry/optics_setup_text.hpp"
 
 #include <cctype>
 #include <cmath>

@@ -135,10 +135,10 @@ void set_bar_field(BarMeasurement& m, const std::string& raw, const SampleFrame&
   fail(ErrorKind::bad_geometry, "'" + raw + "' is not a field direction", m.where, field_help);
 }
 
-Waveform parse_waveform(const std::string& text, const std::string& where) {
+Waveform parse_waveform(const std::string& text, const std::string& where, ErrorKind bad_value) {
   if (text == "sine" || text == "sin") return Waveform::sine;
   if (text == "cosine" || text == "cos") return Waveform::cosine;
-  fail(ErrorKind::bad_geometry, "unknown drive waveform '" + text + "'", where, "sine (I = I0 sin ωt) or cosine");
+  fail(bad_value, "unknown drive waveform '" + text + "'", where, "sine (I = I0 sin ωt) or cosine");
 }
 
 TrigVector current_vector(const BarMeasurement& m) {

@@ -48,7 +48,7 @@ void set_bar_current(BarMeasurement& m, const std::string& text, const SampleFra
 // "[uvw]", or "in-plane:45" (an in-plane angle from sample x, multiple of 15°).
 void set_bar_field(BarMeasurement& m, const std::string& text, const SampleFrame& sf, const std::string& system,
                    LatticeKind lattice, const LatticeMetric& metric);
-Waveform parse_waveform(const std::string& text, const std::string& where);
+Waveform parse_waveform(const std::string& text, const std::string& where, ErrorKind bad_value);
 
 using TrigVector = std::array<TrigPoly, 3>;
 TrigVector current_vector(const BarMeasurement& m);    // u

@@ -7,7 +7,7 @@
 
 #include "core/rational.hpp"
 #include "geometry/crystal_direction.hpp"
-#include "geometry/frame.hpp"
+#include "tensor/frame.hpp"
 
 #include <optional>
 #include <string>

@@ -1,8 +1,7 @@
 #include "group/group_catalogue.hpp"
 
 #include "core/data_dir.hpp"
-
-#include <toml++/toml.h>
+#include "data/toml_read.hpp"
 
 #include <algorithm>
 #include <filesystem>
@@ -56,39 +55,6 @@ std::string normalise_group_symbol(const std::string& s) {
 
 namespace {
 
-std::string position(const std::string& file, const toml::source_region& src) {
-  return file + ":" + std::to_string(src.begin.line) + ":" + std::to_string(src.begin.column);
-}
-
-template <typename T>
-T required(const toml::table& t, const char* key, const std::string& where, const char* expect) {
-  auto node = t.get(key);
-  if (!node) fail(ErrorKind::bad_file, std::string("missing key '") + key + "'", where, expect);
-  auto v = node->value<T>();
-  if (!v) fail(ErrorKind::bad_file, std::string("key '") + key + "' has the wrong type", where, expect);
-  return *v;
-}
-
-std::vector<std::string> string_list(const toml::table& t, const char* key, const std::string& file,
-                                     bool needed) {
-  std::vector<std::string> out;
-  auto node = t.get(key);
-  if (!node) {
-    if (needed) fail(ErrorKind::bad_file, std::string("missing key '") + key + "'", position(file, t.source()),
-                     "an array of strings");
-    return out;
-  }
-  auto arr = node->as_array();
-  if (!arr) fail(ErrorKind::bad_file, std::string("'") + key + "' must be an array of strings",
-                 position(file, node->source()));
-  for (auto& el : *arr) {
-    auto v = el.value<std::string>();
-    if (!v) fail(ErrorKind::bad_file, std::string("'") + key + "' must hold strings", position(file, el.source()));
-    out.push_back(*v);
-  }
-  return out;
-}
-
 int system_rank(const std::string& stem) {
   static const char* order[] = {"triclinic", "monoclinic", "orthorhombic", "tetragonal",
                                 "trigonal",  "hexagonal",  "cubic"};
@@ -98,31 +64,33 @@ int system_rank(const std::string& stem) {
 }
 
 CrystalClass parse_entry(const toml::table& t, const std::string& file) {
-  const std::string where = position(file, t.source());
+  using toml_read::get_required;
   CrystalClass c;
-  c.source = file + ":" + std::to_string(t.source().begin.line);
-  c.name = required<std::string>(t, "name", where, "a Hermann-Mauguin symbol");
-  const std::string at = where + " (group " + c.name + ")";
-  c.full = required<std::string>(t, "full", at, "the full Hermann-Mauguin symbol");
-  c.schoenflies = required<std::string>(t, "schoenflies", at, "a Schoenflies symbol");
-  c.system = required<std::string>(t, "system", at, "a crystal system");
-  c.laue = required<std::string>(t, "laue", at, "a Laue class");
-  c.type = required<std::string>(t, "type", at, "the standard entry's name");
-  c.setting = required<std::string>(t, "setting", at, "a description of the setting");
-  c.standard = required<bool>(t, "standard", at, "true or false");
-  c.centrosymmetric = required<bool>(t, "centrosymmetric", at, "true or false");
-  c.polar = required<bool>(t, "polar", at, "true or false");
-  auto order = required<std::int64_t>(t, "order", at, "the number of operations");
-  std::string lattice = required<std::string>(t, "lattice", at, "\"orthogonal\" or \"hexagonal\"");
+  c.source = toml_read::at(file, t.source());
+  c.name = get_required<std::string>(t, "name", file, "a Hermann-Mauguin symbol", "a [[group]] entry");
+  const std::string entry = "group " + c.name;
+  const std::string at = c.source + " (" + entry + ")";
+  c.full = get_required<std::string>(t, "full", file, "the full Hermann-Mauguin symbol", entry);
+  c.schoenflies = get_required<std::string>(t, "schoenflies", file, "a Schoenflies symbol", entry);
+  c.system = get_required<std::string>(t, "system", file, "a crystal system", entry);
+  c.laue = get_required<std::string>(t, "laue", file, "a Laue class", entry);
+  c.type = get_required<std::string>(t, "type", file, "the standard entry's name", entry);
+  c.setting = get_required<std::string>(t, "setting", file, "a description of the setting", entry);
+  c.standard = get_required<bool>(t, "standard", file, "true or false", entry);
+  c.centrosymmetric = get_required<bool>(t, "centrosymmetric", file, "true or false", entry);
+  c.polar = get_required<bool>(t, "polar", file, "true or false", entry);
+  auto order = get_required<std::int64_t>(t, "order", file, "the number of operations", entry);
+  std::string lattice = get_required<std::string>(t, "lattice", file, "\"orthogonal\" or \"hexagonal\"", entry);
   if (lattice == "orthogonal")
     c.lattice = LatticeKind::orthogonal;
   else if (lattice == "hexagonal")
     c.lattice = LatticeKind::hexagonal;
   else
-    fail(ErrorKind::bad_file, "unknown lattice '" + lattice + "'", at, "\"orthogonal\" or \"hexagonal\"");
-  c.aliases = string_list(t, "aliases", file, false);
-  c.magnetic_names = string_list(t, "magnetic_names", file, false);
-  for (const auto& g : string_list(t, "generators", file, true))
+    fail(ErrorKind::bad_file, "unknown lattice '" + lattice + "'", toml_read::position_of(t, "lattice", file),
+         "\"orthogonal\" or \"hexagonal\"");
+  c.aliases = toml_read::get_strings(t, "aliases", file, false, entry, false);
+  c.magnetic_names = toml_read::get_strings(t, "magnetic_names", file, false, entry, false);
+  for (const auto& g : toml_read::get_strings(t, "generators", file, true, entry, false))
     c.generators.push_back(parse_operation(g, c.lattice, at));
   c.group = PointGroup::generate(c.generators, c.lattice, 48, at);
   require_lattice_group(c.group, at);
@@ -130,7 +98,7 @@ CrystalClass parse_entry(const toml::table& t, const std::string& file) {
     fail(ErrorKind::bad_file,
          "generators give " + std::to_string(c.group.order()) + " operations, 'order' says " +
              std::to_string(order),
-         position(file, t.get("order")->source()) + " (group " + c.name + ")",
+         toml_read::position_of(t, "order", file) + " (" + entry + ")",
          "order = " + std::to_string(c.group.order()) + ", or generators that give " + std::to_string(order) +
              " operations");
   auto sym = t.get("symbol");
@@ -138,7 +106,7 @@ CrystalClass parse_entry(const toml::table& t, const std::string& file) {
   std::string joined;
   for (auto& el : *sym->as_array()) {
     auto pair = el.as_array();
-    std::string here = position(file, el.source());
+    std::string here = toml_read::at(file, el.source());
     if (!pair || pair->size() != 2 || !(*pair)[0].value<std::string>() || !(*pair)[1].value<std::string>())
       fail(ErrorKind::bad_file, "each symbol token is [text, operation]", here, "[\"4\", \"4+ [001]\"]");
     SymbolToken tok{*(*pair)[0].value<std::string>(),
@@ -215,18 +183,13 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::load(const std::string& data_dir
     return ra != rb ? ra < rb : a < b;
   });
   for (const auto& f : files) {
-    toml::table root;
-    try {
-      root = toml::parse_file(f.string());
-    } catch (const toml::parse_error& e) {
-      fail(ErrorKind::bad_file, std::string(e.description()), position(f.string(), e.source()),
-           "TOML (https://toml.io), schema in groups/README.md");
-    }
+    const toml::table root =
+        toml_read::parse_file(f.string(), "group file", "TOML (https://toml.io), schema in groups/README.md");
     auto arr = root["group"].as_array();
     if (!arr) fail(ErrorKind::bad_file, "no [[group]] entries", f.string(), "[[group]] tables, groups/README.md");
     for (auto& el : *arr) {
       auto t = el.as_table();
-      if (!t) fail(ErrorKind::bad_file, "'group' must be an array of tables", position(f.string(), el.source()));
+      if (!t) fail(ErrorKind::bad_file, "'group' must be an array of tables", toml_read::at(f.string(), el.source()));
       cat->classes_.push_back(parse_entry(*t, f.string()));
     }
   }

@@ -6,8 +6,6 @@
 
 namespace ts {
 
-namespace {
-
 // Scale a direction so its squared length is rational where possible
 // (components that are all multiples of √3 are divided by √3).
 bool rational_length(Vec3& v) {
@@ -38,6 +36,8 @@ std::vector<Vec3> candidate_lines(const PointGroup& g) {
     for (const auto& b : e) add(cross(lines[i], b));
   return lines;
 }
+
+namespace {
 
 // Does the frame with rows r carry op g onto some operation of the standard group?
 // Frames of films come from measured lattice parameters (a = 3.91, c = 4.1 gives a

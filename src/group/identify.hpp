@@ -21,6 +21,13 @@ struct Identification {
 // onto target: Q g Qᵀ = target with Q the normalised rows.
 bool frame_carries(const std::array<Vec3, 3>& rows, const PointGroup& g, const PointGroup& target);
 
+// Lines a frame for the group can be built from: its rotation axes and mirror
+// normals, their cross products, x, y, z and their cross products with those,
+// each scaled to a rational squared length where possible. Needs no catalogue.
+std::vector<Vec3> candidate_lines(const PointGroup& g);
+// Scales v (a multiple of √3 becomes rational) and says whether its squared length is rational.
+bool rational_length(Vec3& v);
+
 // Throws Error(bad_group) when the operations are not a crystallographic
 // (magnetic) point group.
 Identification identify(const PointGroup& group, const GroupCatalogue& catalogue);

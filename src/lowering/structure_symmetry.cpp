@@ -1,6 +1,7 @@
-#include "lowering/structure_symmetry.hpp"
+#include "lowering/structure_table.hpp"
 
 #include "core/error.hpp"
+#include "data/toml_read.hpp"
 #include "lowering/site_grid.hpp"
 
 #include <spglib.h>
@@ -19,8 +20,6 @@ namespace {
 using Mat = std::array<std::array<double, 3>, 3>;
 using IMat = std::array<std::array<int, 3>, 3>;
 
-const char* const kBlockKeys = "lattice (or a, b, c, alpha, beta, gamma), sites, symprec";
-const char* const kSiteKeys = "species, at, moment";
 const char* const kSpglibValid =
     "atoms of one species further apart than symprec (merge duplicates or lower symprec); a structure that is "
     "only nearly symmetric may need a larger symprec";
@@ -33,12 +32,9 @@ std::string number_text(double x) {
 }
 
 // "cell.toml:7:14", the one position format of every file error, when toml++ knows the
-// position; the section named in `where` otherwise.
+// position (the file is the one the node was read from); the section named in `where` otherwise.
 std::string locate(const std::string& where, const toml::source_region& r) {
-  if (r.begin.line == 0) return where; // built in code, not read from a file
-  const std::string pos = ":" + std::to_string(r.begin.line) + ":" + std::to_string(r.begin.column);
-  if (r.path && !r.path->empty()) return *r.path + pos;
-  return where + pos;
+  return toml_read::at(r.path && !r.path->empty() ? *r.path : where, r);
 }
 
 std::string locate(const std::string& where, const toml::node* n) { return n ? locate(where, n->source()) : where; }
@@ -48,20 +44,7 @@ std::string locate(const std::string& where, const toml::node* n) { return n ? l
   fail(ErrorKind::bad_file, field + ": " + problem, locate(where, n), valid);
 }
 
-const char* type_name(const toml::node& n) {
-  switch (n.type()) {
-  case toml::node_type::table: return "a table";
-  case toml::node_type::array: return "an array";
-  case toml::node_type::string: return "a string";
-  case toml::node_type::integer: return "an integer";
-  case toml::node_type::floating_point: return "a float";
-  case toml::node_type::boolean: return "a boolean";
-  case toml::node_type::date: return "a date";
-  case toml::node_type::time: return "a time";
-  case toml::node_type::date_time: return "a date-time";
-  default: return "nothing";
-  }
-}
+using toml_read::type_name;
 
 double read_number(const toml::node& n, const std::string& where, const std::string& field,
                    const std::string& valid) {
@@ -183,13 +166,9 @@ Mat read_lattice(const toml::table& block, const std::string& where) {
 }
 
 void reject_unknown_keys(const toml::table& t, const std::set<std::string>& known, const std::string& where,
-                         const std::string& prefix, const char* valid) {
-  for (auto&& [key, node] : t) {
-    if (!known.count(std::string(key.str())))
-      fail(ErrorKind::bad_file, prefix + std::string(key.str()) + ": unknown field",
-           key.source().begin.line ? locate(where, key.source()) : locate(where, &node),
-           std::string("fields: ") + valid);
-  }
+                         const std::string& table) {
+  const std::string file = t.source().path && !t.source().path->empty() ? *t.source().path : where;
+  toml_read::check_keys(t, known, file, table);
 }
 
 AtomSite read_site(const toml::node& n, std::size_t index, const std::string& where, bool* has_moment) {
@@ -198,7 +177,7 @@ AtomSite read_site(const toml::node& n, std::size_t index, const std::string& wh
                             "moment = [mx, my, mz] (Cartesian, optional) }";
   const toml::table* t = n.as_table();
   if (!t) bad(where, &n, name, std::string("expected a table, got ") + type_name(n), valid);
-  reject_unknown_keys(*t, {"species", "at", "moment"}, where, name + ".", kSiteKeys);
+  reject_unknown_keys(*t, {"species", "at", "moment"}, where, name);
   AtomSite site;
   const toml::node* sp = t->get("species");
   if (!sp) bad(where, t, name + ".species", "missing", valid);
@@ -283,8 +262,8 @@ std::array<double, 3> fractional_to_cartesian(const CrystalStructure& cell, cons
 }
 
 CrystalStructure parse_structure(const toml::table& block, const std::string& where) {
-  reject_unknown_keys(block, {"lattice", "a", "b", "c", "alpha", "beta", "gamma", "sites", "symprec"}, where, "",
-                      kBlockKeys);
+  reject_unknown_keys(block, {"lattice", "a", "b", "c", "alpha", "beta", "gamma", "sites", "symprec"}, where,
+                      "the structure");
   CrystalStructure cell;
   cell.where = where;
   cell.lattice = read_lattice(block, where);

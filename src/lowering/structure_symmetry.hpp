@@ -21,8 +21,6 @@
 //   to  det(R) R m  and, when primed, to minus that.
 #pragma once
 
-#include <toml++/toml.h>
-
 #include <array>
 #include <string>
 #include <utility>
@@ -81,16 +79,7 @@ struct StructureSymmetry {
   double symprec = 1e-5;       // the tolerance the search used
 };
 
-// Reads a [structure] block (schema in docs/structures.md):
-//   lattice = [[ax, ay, az], [bx, by, bz], [cx, cy, cz]]        (rows a, b, c; Angstrom)
-//   or a, b, c (Angstrom) and alpha, beta, gamma (degrees), with a along x and
-//   b in the xy plane
-//   sites = [ { species = "Ti", at = [0.5, 0.5, 0.5], moment = [0, 0, 1] }, ... ]
-//   symprec = 1e-5                                               (optional)
-// `where` names the block for messages, e.g. "cell.toml:[structure]". Every
-// malformed or unknown field throws ts::Error(ErrorKind::bad_file) naming the
-// field and its line:column.
-CrystalStructure parse_structure(const toml::table& block, const std::string& where);
+// A [structure] block of a TOML file is read by parse_structure (lowering/structure_table.hpp).
 
 // Space group and point operations of a structure, by spglib. Uses the magnetic
 // search (moments as axial rank-1 site tensors) when `cell.magnetic`. Throws

@@ -48,23 +48,18 @@ std::string write_group_list(const std::vector<const NamedGroup*>& groups, Forma
   return finish(os.str(), f);
 }
 
-std::string write_group_description(const NamedGroup& g, bool with_subgroups, const GroupCatalogue& cat, Format f) {
+std::string write_group_description(const GroupDescription& d, Format f) {
+  const NamedGroup& g = *d.group;
   const PointGroup& G = g.group;
-  std::vector<PointGroup> subs;
-  if (with_subgroups) subs = G.subgroups();
-  auto sub_name = [&](const PointGroup& H) {
-    Identification id = identify(H, cat);
-    return id.same_setting ? id.same_setting->symbol : id.type->symbol + "*";
-  };
   if (f == Format::json) {
     toml::array ops, subarr;
     for (const auto& o : G.operations()) ops.push_back(o.symbol(G.lattice()));
-    for (const auto& H : subs) {
+    for (const auto& sub : d.subgroups) {
+      const PointGroup& H = sub.group;
       toml::array hops;
       for (const auto& o : H.operations()) hops.push_back(o.symbol(G.lattice()));
-      Identification id = identify(H, cat);
-      subarr.push_back(toml::table{{"symbol", sub_name(H)},
-                                   {"type", id.type->symbol},
+      subarr.push_back(toml::table{{"symbol", sub.symbol},
+                                   {"type", sub.type_symbol},
                                    {"order", static_cast<std::int64_t>(H.order())},
                                    {"index", static_cast<std::int64_t>(G.order() / H.order())},
                                    {"operations", hops}});
@@ -81,7 +76,7 @@ std::string write_group_description(const NamedGroup& g, bool with_subgroups, co
                   {"full_symbol", g.crystal->full},
                   {"centrosymmetric", g.crystal->centrosymmetric},
                   {"operations", ops}};
-    if (with_subgroups) t.insert("subgroups", subarr);
+    if (d.with_subgroups) t.insert("subgroups", subarr);
     return json_text(t);
   }
   std::ostringstream os;
@@ -100,13 +95,14 @@ std::string write_group_description(const NamedGroup& g, bool with_subgroups, co
   std::vector<std::vector<std::string>> rows;
   for (const auto& o : G.operations()) rows.push_back({code(o.symbol(G.lattice()), f), o.R.str()});
   os << grid({"operation", "matrix (Cartesian, rows)"}, rows, f);
-  if (with_subgroups) {
+  if (d.with_subgroups) {
     os << "\n" << heading("subgroups (* = not in a tabulated setting)", f);
     std::vector<std::vector<std::string>> srows;
-    for (const auto& H : subs) {
+    for (const auto& sub : d.subgroups) {
+      const PointGroup& H = sub.group;
       std::string ops;
       for (const auto& o : H.operations()) ops += (ops.empty() ? "" : ", ") + o.symbol(G.lattice());
-      srows.push_back({code(sub_name(H), f), std::to_string(H.order()), std::to_string(G.order() / H.order()), ops});
+      srows.push_back({code(sub.symbol, f), std::to_string(H.order()), std::to_string(G.order() / H.order()), ops});
     }
     os << grid({"subgroup", "order", "index", "operations"}, srows, f);
   }

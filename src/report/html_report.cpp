@@ -2,9 +2,9 @@
 
 #include "figure/figure_data.hpp"
 #include "figure/figure_draw.hpp"
+#include "geometry/optics_setup_text.hpp"
 #include "report/series_text.hpp"
 #include "report/html_math.hpp"
-#include "report/optics_report.hpp"
 
 #include <sstream>
 

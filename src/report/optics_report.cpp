@@ -1,5 +1,6 @@
 #include "report/optics_report.hpp"
 
+#include "geometry/optics_setup_text.hpp"
 #include "report/series_text.hpp"
 
 #include <sstream>
@@ -67,37 +68,6 @@ std::string delta_eps_name(const std::string& indices, Format f) {
 
 } // namespace
 
-std::string optical_setup_text(const OpticalMeasurement& m) {
-  std::string s = optics_mode_name(m.mode);
-  s += m.incidence_deg ? ", angle of incidence θ = " + std::to_string(*m.incidence_deg) + "°" : ", angle of incidence θ (a variable)";
-  s += m.azimuth_rotating ? ", sample azimuth φ turning" : ", sample azimuth fixed at " + std::to_string(m.azimuth_deg) + "°";
-  return s;
-}
-
-std::string local_field_text(const OpticalMeasurement& m, bool latex) {
-  const LocalFieldSetting& lf = m.local_field;
-  auto words = [&](const std::string& s) { return latex ? latex_escape(s) : s; };
-  if (!lf.applied) return words("no Fresnel or local-field factors are applied");
-  auto symbol = [&](int i) { return latex ? "$" + local_field_symbol_name(i, true) + "$" : local_field_symbol_name(i); };
-  auto three = [&](int first) { return symbol(first) + ", " + symbol(first + 1) + ", " + symbol(first + 2); };
-  std::string s = words("Fresnel / local-field factors are applied, as symbols: the lab components x, y, z of the "
-                        "driving field carry ") +
-                  three(0) + words(" and those of the radiated field ") + three(3) +
-                  words(" (x in the plane of incidence, z along the normal); which channels are dark does not depend "
-                        "on their values");
-  if (m.incidence_deg && *m.incidence_deg == 0)
-    s += words("; at normal incidence S and P are the same wave, so the in-plane factors coincide and the amplitudes "
-               "write ") + symbol(1) + words(" as ") + symbol(0) + words(" and ") + symbol(4) + words(" as ") + symbol(3);
-  if (!lf.indices) return s + words("; no refractive indices are given, so they have no numbers");
-  const RefractiveIndices& n = *lf.indices;
-  s += words("; their values in the two-medium Fresnel model at θ = " + std::to_string(*m.incidence_deg) +
-             "° with n_ambient = " + n.ambient.text + ", n(ω) = " + n.omega.text + ", n(2ω) = " + n.two_omega.text +
-             " are ");
-  for (int i = 0; i < local_field_symbol_count; ++i)
-    s += (i ? ", " : "") + symbol(i) + " = " + words(complex_text(lf.values[i]));
-  return s + words(" (numbers for display and figures only)");
-}
-
 std::string write_shg(const ScenarioResult& r, Format f) {
   std::ostringstream os;
   for (const auto& s : r.shg) {
@@ -106,7 +76,7 @@ std::string write_shg(const ScenarioResult& r, Format f) {
     os << prose(optical_setup_text(m), f) << "." << line(f);
     os << prose("Channels are named input-output (PS: P-polarised in, S-polarised analysed); a polariser angle is "
                 "measured from P towards S. Amplitudes are exact up to one prefactor per source kind; ", f)
-       << local_field_text(m, f == Format::latex)
+       << (f == Format::latex ? local_field_text(m, latex_escape) : local_field_text(m))
        << prose(". The intensity is the squared modulus of A, with complex parameters.", f) << "\n\n";
     for (const auto& src : s.sources) {
       os << (f == Format::markdown ? "**" : "") << prose(source_title(r, src), f) << (f == Format::markdown ? "**" : "")

@@ -21,10 +21,4 @@ toml::array shg_json(const ScenarioResult& r);
 std::string write_kerr(const ScenarioResult& r, Format f);
 toml::array kerr_json(const ScenarioResult& r);
 
-// "reflection, θ = 45°, sample azimuth φ turning" for a heading or caption.
-std::string optical_setup_text(const OpticalMeasurement& m);
-// The clause every report and caption carries on Fresnel / local-field
-// factors: none applied, or the symbols and, with indices, their values.
-std::string local_field_text(const OpticalMeasurement& m, bool latex = false);
-
 } // namespace ts

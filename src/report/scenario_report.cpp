@@ -254,7 +254,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
         }
         entry.insert("domains", toml::table{{"from_step", static_cast<std::int64_t>(d.from_step)},
                                             {"variants", vars},
-                                            {"domain_group", identify(d.domain_group, GroupCatalogue::builtin()).type->symbol},
+                                            {"domain_group", d.domain_symbol},
                                             {"fractions", fractions},
                                             {"in_field", fields},
                                             {"average", tensor_components_text(d.analysis.average, d.form, Format::text)}});
@@ -361,7 +361,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     os << write_form(p.forms.back(), context_of(r.chain.back(), lattice), fc, f, View::automatic) << "\n";
     for (const auto& d : r.domains) {
       if (d.part != k) continue;
-      std::string dg = identify(d.domain_group, GroupCatalogue::builtin()).type->symbol;
+      const std::string& dg = d.domain_symbol;
       os << heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
                         group_name(r.chain[d.from_step]) + " (spontaneous steps only; applied fields form no domains)",
                     f, 3);

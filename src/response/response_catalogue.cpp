@@ -3,8 +3,7 @@
 
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
-
-#include <toml++/toml.h>
+#include "data/toml_read.hpp"
 
 #include <algorithm>
 #include <cctype>
@@ -60,10 +59,6 @@ std::string normalise_response_key(const std::string& s) {
 
 namespace {
 
-std::string position(const std::string& file, const toml::source_region& src) {
-  return file + ":" + std::to_string(src.begin.line) + ":" + std::to_string(src.begin.column);
-}
-
 // Ids are what users type and scenario files store: keep them plain.
 bool valid_key(const std::string& s) {
   if (s.empty() || !std::islower(static_cast<unsigned char>(s.front())) || s.back() == '-') return false;
@@ -92,73 +87,7 @@ std::size_t edit_distance(const std::string& a, const std::string& b) {
 
 // Reading one table with exact messages: where the table starts, which entry,
 // which key, and what would be valid.
-class TableReader {
-public:
-  TableReader(const toml::table& t, std::string file, std::string context)
-      : t_(t), file_(std::move(file)), context_(std::move(context)) {}
-
-  std::string at() const { return position(file_, t_.source()); }
-  std::string at(const char* key) const {
-    const toml::node* n = t_.get(key);
-    return n ? position(file_, n->source()) : at();
-  }
-  [[noreturn]] void error(const char* key, const std::string& what, const std::string& valid = {}) const {
-    fail(ErrorKind::bad_file, context_ + ", key '" + key + "': " + what, at(key), valid);
-  }
-
-  void only_keys(const std::vector<std::string>& allowed) const {
-    for (const auto& [k, v] : t_) {
-      std::string key(k.str());
-      if (std::find(allowed.begin(), allowed.end(), key) == allowed.end())
-        fail(ErrorKind::bad_file, context_ + ": unknown key '" + key + "'", position(file_, v.source()),
-             "keys of this table: " + join(allowed, ", ") + " (docs/responses.md)");
-    }
-  }
-
-  std::string text(const char* key, bool needed = true) const {
-    const toml::node* n = t_.get(key);
-    if (!n) {
-      if (needed) fail(ErrorKind::bad_file, context_ + ": missing key '" + key + "'", at(), "a string");
-      return {};
-    }
-    auto v = n->value<std::string>();
-    if (!v) error(key, "must be a string", "a quoted TOML string");
-    if (needed && v->find_first_not_of(" \t") == std::string::npos) error(key, "is empty", "a non-empty string");
-    return *v;
-  }
-
-  bool flag(const char* key) const {
-    const toml::node* n = t_.get(key);
-    if (!n) return false;
-    auto v = n->value<bool>();
-    if (!v) error(key, "must be true or false");
-    return *v;
-  }
-
-  std::vector<std::string> list(const char* key, bool needed) const {
-    std::vector<std::string> out;
-    const toml::node* n = t_.get(key);
-    if (!n) {
-      if (needed) fail(ErrorKind::bad_file, context_ + ": missing key '" + key + "'", at(), "an array of strings");
-      return out;
-    }
-    const toml::array* arr = n->as_array();
-    if (!arr) error(key, "must be an array of strings", "[\"...\", \"...\"]");
-    for (const auto& el : *arr) {
-      auto v = el.value<std::string>();
-      if (!v) fail(ErrorKind::bad_file, context_ + ", key '" + key + "': must hold strings", position(file_, el.source()));
-      out.push_back(*v);
-    }
-    return out;
-  }
-
-  const toml::table& table() const { return t_; }
-  const std::string& file() const { return file_; }
-
-private:
-  const toml::table& t_;
-  std::string file_, context_;
-};
+using TableReader = toml_read::Table;
 
 TensorSpec spec_at(const TableReader& r, const char* key, const std::string& text) {
   try {
@@ -234,9 +163,9 @@ void read_roles(const TableReader& r, ResponsePart& p) {
 
 ResponsePart parse_part(const toml::table& t, const std::string& file, const std::string& id, std::size_t index) {
   TableReader r(t, file, "response '" + id + "', part " + std::to_string(index + 1));
-  r.only_keys({"label", "spec", "indices", "harmonic", "drive", "mechanism", "hall", "excluded"});
+  r.only_keys({"label", "spec", "indices", "harmonic", "drive", "mechanism", "hall", "excluded"}, "(docs/responses.md)");
   ResponsePart p;
-  p.where = file + ":" + std::to_string(t.source().begin.line);
+  p.where = toml_read::at(file, t.source());
   p.label = r.text("label");
   p.spec_text = r.text("spec");
   p.mechanism = r.text("mechanism", false);
@@ -262,9 +191,10 @@ Response parse_response(const toml::table& t, const std::string& file, std::size
   std::string id = idn && idn->value<std::string>() ? *idn->value<std::string>() : "#" + std::to_string(index + 1);
   TableReader r(t, file, "response '" + id + "'");
   r.only_keys({"id", "name", "aliases", "relation", "response", "drives", "harmonic", "time_reversal", "onsager",
-               "source", "status", "part"});
+               "source", "status", "part"},
+              "(docs/responses.md)");
   Response out;
-  out.where = file + ":" + std::to_string(t.source().begin.line);
+  out.where = toml_read::at(file, t.source());
   out.id = r.text("id");
   if (!valid_key(out.id)) r.error("id", "'" + out.id + "' is not a valid id", "lowercase letters, digits and single hyphens, e.g. anomalous-hall");
   out.name = r.text("name");
@@ -294,7 +224,7 @@ Response parse_response(const toml::table& t, const std::string& file, std::size
   for (std::size_t i = 0; i < arr->size(); ++i) {
     const toml::table* pt = (*arr)[i].as_table();
     if (!pt) fail(ErrorKind::bad_file, "response '" + out.id + "': 'part' must hold tables",
-                  position(file, (*arr)[i].source()), "[[response.part]] tables");
+                  toml_read::at(file, (*arr)[i].source()), "[[response.part]] tables");
     out.parts.push_back(parse_part(*pt, file, out.id, i));
   }
   return out;
@@ -303,20 +233,11 @@ Response parse_response(const toml::table& t, const std::string& file, std::size
 } // namespace
 
 std::unique_ptr<ResponseCatalogue> ResponseCatalogue::load(const std::string& path) {
-  std::error_code ec;
-  if (!std::filesystem::is_regular_file(path, ec))
-    fail(ErrorKind::bad_file, "cannot read the response catalogue '" + path + "'", path,
-         "a TOML file of [[response]] tables (docs/responses.md)");
-  toml::table root;
-  try {
-    root = toml::parse_file(path);
-  } catch (const toml::parse_error& e) {
-    fail(ErrorKind::bad_file, std::string(e.description()), position(path, e.source()),
-         "TOML (https://toml.io), schema in docs/responses.md");
-  }
+  const toml::table root =
+      toml_read::parse_file(path, "response catalogue", "TOML (https://toml.io), schema in docs/responses.md");
   for (const auto& [k, v] : root)
     if (k.str() != "response")
-      fail(ErrorKind::bad_file, "unknown top-level key '" + std::string(k.str()) + "'", position(path, v.source()),
+      fail(ErrorKind::bad_file, "unknown top-level key '" + std::string(k.str()) + "'", toml_read::at(path, v.source()),
            "only [[response]] tables");
   const toml::array* arr = root["response"].as_array();
   if (!arr || arr->empty())
@@ -327,7 +248,7 @@ std::unique_ptr<ResponseCatalogue> ResponseCatalogue::load(const std::string& pa
   std::map<std::string, std::string> taken; // id or alias -> where it was defined
   for (std::size_t i = 0; i < arr->size(); ++i) {
     const toml::table* t = (*arr)[i].as_table();
-    if (!t) fail(ErrorKind::bad_file, "'response' must be an array of tables", position(path, (*arr)[i].source()));
+    if (!t) fail(ErrorKind::bad_file, "'response' must be an array of tables", toml_read::at(path, (*arr)[i].source()));
     Response r = parse_response(*t, path, i);
     std::vector<std::string> keys{r.id};
     keys.insert(keys.end(), r.aliases.begin(), r.aliases.end());
@@ -340,32 +261,28 @@ std::unique_ptr<ResponseCatalogue> ResponseCatalogue::load(const std::string& pa
     cat->responses_.push_back(std::move(r));
   }
   const std::string families = (std::filesystem::path(path).parent_path() / "families.toml").string();
+  std::error_code ec;
   if (std::filesystem::is_regular_file(families, ec)) cat->load_families(families);
   return cat;
 }
 
 void ResponseCatalogue::load_families(const std::string& path) {
-  toml::table root;
-  try {
-    root = toml::parse_file(path);
-  } catch (const toml::parse_error& e) {
-    fail(ErrorKind::bad_file, std::string(e.description()), position(path, e.source()),
-         "TOML arrays of response ids, FAMILY = [\"id\", ...]");
-  }
+  const toml::table root =
+      toml_read::parse_file(path, "family file", "TOML arrays of response ids, FAMILY = [\"id\", ...]");
   std::map<std::string, std::string> placed;
   for (const auto& [k, v] : root) {
     const std::string name(k.str());
     const toml::array* ids = v.as_array();
     if (!ids || name == "all")
       fail(ErrorKind::bad_file, "family '" + name + "' must be an array of response ids (and not be called all)",
-           position(path, v.source()), "FAMILY = [\"id\", ...]");
+           toml_read::at(path, v.source()), "FAMILY = [\"id\", ...]");
     for (const auto& el : *ids) {
       auto id = el.value<std::string>();
       if (!id || !find(*id) || find(*id)->id != *id)
-        fail(ErrorKind::bad_file, "family '" + name + "': not a catalogue id", position(path, el.source()),
+        fail(ErrorKind::bad_file, "family '" + name + "': not a catalogue id", toml_read::at(path, el.source()),
              "ids from `tensorsieve responses`");
       if (!placed.emplace(*id, name).second)
-        fail(ErrorKind::bad_file, "response '" + *id + "' is in two families", position(path, el.source()),
+        fail(ErrorKind::bad_file, "response '" + *id + "' is in two families", toml_read::at(path, el.source()),
              "each id in one family");
       families_[name].push_back(*id);
     }

@@ -1,69 +1,34 @@
-#include "scenario/scenario.hpp"
+#include "scenario/scenario_table.hpp"
 
 #include "core/error.hpp"
 #include "core/text.hpp"
+#include "data/toml_read.hpp"
 #include "group/group_catalogue.hpp"
 #include "lowering/structure_file.hpp"
+#include "lowering/structure_table.hpp"
 #include "response/response_catalogue.hpp"
 #include "tensor/tensor_spec.hpp"
-
-#include <toml++/toml.h>
 
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
-#include <fstream>
-#include <sstream>
 #include <set>
 
 namespace ts {
 
+using toml_read::at;
+using toml_read::check_at;
+using toml_read::check_keys;
+using toml_read::get_string;
+using toml_read::get_strings;
+using toml_read::position_of;
+
 namespace {
+
+const char* scenario_schema = "a TOML scenario file (schema in docs/scenarios.md)";
 
 const char* kinds_help =
     "strain, shear, polar, electric-field, moment, magnetic-field, current, magnetic-group, subgroup, tilts";
-
-std::string at(const std::string& file, const toml::source_region& s) {
-  if (s.begin.line == 0) return file; // a table built in memory (a Python dict) has no lines
-  return file + ":" + std::to_string(s.begin.line) + ":" + std::to_string(s.begin.column);
-}
-
-std::string get_string(const toml::table& t, const char* key, const std::string& file, bool required,
-                       const char* valid) {
-  auto node = t.get(key);
-  if (!node) {
-    if (required) fail(ErrorKind::bad_file, std::string("missing key '") + key + "'", at(file, t.source()), valid);
-    return {};
-  }
-  auto v = node->value<std::string>();
-  if (!v) fail(ErrorKind::bad_file, std::string("'") + key + "' must be a string", at(file, node->source()), valid);
-  return *v;
-}
-
-void check_keys(const toml::table& t, const std::set<std::string>& allowed, const std::string& file,
-                const std::string& section) {
-  for (const auto& [k, v] : t)
-    if (!allowed.count(std::string(k.str()))) {
-      std::string list;
-      for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
-      fail(ErrorKind::bad_file, "unknown key '" + std::string(k.str()) + "' in " + section, at(file, v.source()), list);
-    }
-}
-
-std::vector<std::string> get_strings(const toml::table& t, const char* key, const std::string& file) {
-  std::vector<std::string> out;
-  auto node = t.get(key);
-  if (!node) return out;
-  if (auto s = node->value<std::string>()) return {*s};
-  auto arr = node->as_array();
-  if (!arr) fail(ErrorKind::bad_file, std::string("'") + key + "' must be a string or an array of strings", at(file, node->source()));
-  for (auto& el : *arr) {
-    auto s = el.value<std::string>();
-    if (!s) fail(ErrorKind::bad_file, std::string("'") + key + "' must hold strings", at(file, el.source()));
-    out.push_back(*s);
-  }
-  return out;
-}
 
 std::optional<Rational> get_length(const toml::table& t, const char* key, const std::string& file) {
   auto node = t.get(key);
@@ -73,21 +38,6 @@ std::optional<Rational> get_length(const toml::table& t, const char* key, const 
     fail(ErrorKind::bad_file, std::string("lattice parameter '") + key + "' must be a positive number",
          at(file, node->source()), "a length in Angstrom, e.g. 3.905");
   return exact_decimal(*v, at(file, node->source()), ErrorKind::bad_file);
-}
-
-// Check a value where it is read, so its error names the file, line and column.
-template <typename Check>
-void check_at(const std::string& where, Check check) {
-  try {
-    check();
-  } catch (const Error& e) {
-    fail(e.kind(), e.problem(), e.location().empty() ? where : where + ": " + e.location(), e.valid());
-  }
-}
-
-std::string position_of(const toml::table& t, const char* key, const std::string& file) {
-  auto node = t.get(key);
-  return node ? at(file, node->source()) : file;
 }
 
 } // namespace
@@ -151,6 +101,7 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
 BarSpec parse_bar_option(const std::string& text, const std::string& where) {
   BarSpec b;
   b.where = where;
+  b.bad_value = ErrorKind::usage;
   std::size_t colon = text.find(':');
   b.current = text.substr(0, colon);
   if (b.current.empty()) b.current = "rotating";
@@ -162,6 +113,7 @@ BarSpec parse_bar_option(const std::string& text, const std::string& where) {
 ShgSpec parse_shg_option(const std::string& text, const std::string& where) {
   ShgSpec s;
   s.where = where;
+  s.bad_value = ErrorKind::usage;
   s.name = "SHG (" + text + ")";
   const std::vector<std::string> fields = split(text, ':');
   if (fields.size() > 3)
@@ -189,6 +141,7 @@ RefractiveIndices parse_indices_option(const std::string& text, const std::strin
 LayoutSpec parse_layout_option(const std::string& text, const std::string& where) {
   LayoutSpec l;
   l.where = where;
+  l.bad_value = ErrorKind::usage;
   std::size_t colon = text.find(':');
   l.response = text.substr(0, colon);
   if (colon != std::string::npos) {
@@ -405,7 +358,7 @@ void read_figures(const toml::table& root, const std::string& path, Scenario& sc
 
 } // namespace
 
-Rational parse_fraction(const std::string& text, const std::string& where) {
+Rational parse_fraction(const std::string& text, const std::string& where, ErrorKind bad_value) {
   const char* valid = "a volume fraction between 0 and 1: 0.25 or 1/4";
   Rational r;
   try {
@@ -414,7 +367,7 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
     if (slash == std::string::npos) {
       double v = std::stod(text, &used);
       if (used != text.size()) throw std::invalid_argument(text);
-      r = exact_decimal(v, where, ErrorKind::usage);
+      r = exact_decimal(v, where, bad_value);
     } else {
       long long p = std::stoll(text.substr(0, slash), &used);
       if (used != slash) throw std::invalid_argument(text);
@@ -424,37 +377,18 @@ Rational parse_fraction(const std::string& text, const std::string& where) {
       r = Rational(p, q);
     }
   } catch (const std::exception&) {
-    fail(ErrorKind::usage, "'" + text + "' is not a fraction", where, valid);
+    fail(bad_value, "'" + text + "' is not a fraction", where, valid);
   }
-  if (r < Rational(0) || Rational(1) < r) fail(ErrorKind::usage, "domain fraction " + text + " is outside [0, 1]", where, valid);
+  if (r < Rational(0) || Rational(1) < r) fail(bad_value, "domain fraction " + text + " is outside [0, 1]", where, valid);
   return r;
 }
 
 Scenario load_scenario(const std::string& path) {
-  std::error_code ec;
-  auto status = std::filesystem::status(path, ec);
-  if (ec || !std::filesystem::exists(status))
-    fail(ErrorKind::bad_file, "no such file", path, "the path of a scenario TOML file (docs/scenarios.md)");
-  if (!std::filesystem::is_regular_file(status))
-    fail(ErrorKind::bad_file, std::filesystem::is_directory(status) ? "is a directory, not a scenario file"
-                                                                     : "is not a regular file",
-         path, "the path of a scenario TOML file (docs/scenarios.md)");
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream text;
-  text << in.rdbuf();
-  if (!in) fail(ErrorKind::bad_file, "cannot read the file", path, "a readable scenario TOML file");
-  return parse_scenario(text.str(), path);
+  return scenario_from_table(toml_read::parse_file(path, "scenario file", scenario_schema), path);
 }
 
 Scenario parse_scenario(const std::string& text, const std::string& path) {
-  toml::table root;
-  try {
-    root = toml::parse(text, path);
-  } catch (const toml::parse_error& e) {
-    fail(ErrorKind::bad_file, std::string(e.description()), at(path, e.source()),
-         "a TOML scenario file (schema in docs/scenarios.md)");
-  }
-  return scenario_from_table(root, path);
+  return scenario_from_table(toml_read::parse_text(text, path, scenario_schema), path);
 }
 
 Scenario scenario_from_table(const toml::table& root, const std::string& path) {
@@ -574,8 +508,8 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
       if (!arr) fail(ErrorKind::bad_file, "'domain_fractions' must be an array", sc.fractions_where, "[0.75, 0.25] or [\"2/3\", \"1/3\"]");
       for (auto& el : *arr) {
         std::string where = at(path, el.source());
-        if (auto text = el.value<std::string>()) sc.domain_fractions.push_back(parse_fraction(*text, where));
-        else if (auto num = el.value<double>()) sc.domain_fractions.push_back(parse_fraction(std::to_string(*num), where));
+        if (auto text = el.value<std::string>()) sc.domain_fractions.push_back(parse_fraction(*text, where, ErrorKind::bad_file));
+        else if (auto num = el.value<double>()) sc.domain_fractions.push_back(parse_fraction(std::to_string(*num), where, ErrorKind::bad_file));
         else fail(ErrorKind::bad_file, "a domain fraction must be a number or a string such as \"1/3\"", where);
       }
       if (!sc.domains)

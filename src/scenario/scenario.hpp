@@ -12,7 +12,6 @@
 #include "lowering/structure_symmetry.hpp"
 
 #include <map>
-#include <toml++/toml.h>
 
 #include <optional>
 #include <string>
@@ -45,6 +44,7 @@ struct BarSpec {
   std::optional<double> current_rms, length, width, thickness; // A, m
   std::vector<std::string> responses; // catalogue ids; empty: every response of the scenario
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // Which bars to pattern for one response at one harmonic (layout_design.hpp).
@@ -55,6 +55,7 @@ struct LayoutSpec {
   std::vector<int> rosette;            // bar angles from sample x in degrees (multiples of 15)
   std::vector<std::string> fields;     // field geometries per bar; empty: along, across, normal for field parts
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // An observed signal for the inverse question (`tensorsieve observe`): the
@@ -85,6 +86,7 @@ struct ShgSpec {
   bool local_field = false;             // Fresnel / local-field factors as symbols (docs/optics.md)
   std::optional<RefractiveIndices> indices; // their numbers; given indices turn the factors on
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // A magneto-optic question (docs/optics.md): the Kerr geometries the final
@@ -93,6 +95,7 @@ struct KerrSpec {
   std::string name;
   std::string magnetisation = "in-plane"; // in-plane, normal, any, [uvw], in-plane:ANGLE
   std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
 // Figures of the scenario (docs/figures.md): illustrative parameter values,
@@ -132,9 +135,7 @@ struct Scenario {
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column
-// The same from a table already in memory (e.g. built from a Python dict);
-// `path` names it in messages, and relative structure files are read from its folder.
-Scenario scenario_from_table(const toml::table& root, const std::string& path);
+// From a TOML table already in memory: scenario/scenario_table.hpp.
 // The same from the text of a file; `path` names it in messages.
 Scenario parse_scenario(const std::string& text, const std::string& path);
 LoweringKind parse_lowering_kind(const std::string& text, const std::string& where, ErrorKind bad_value);
@@ -151,6 +152,6 @@ ShgSpec parse_shg_option(const std::string& text, const std::string& where);
 // values the ambient is 1.
 RefractiveIndices parse_indices_option(const std::string& text, const std::string& where);
 // "0.25", "1/4" or "1"; a fraction between 0 and 1, exactly. Throws Error(usage) naming `where`.
-Rational parse_fraction(const std::string& text, const std::string& where);
+Rational parse_fraction(const std::string& text, const std::string& where, ErrorKind bad_value);
 
 } // namespace ts

@@ -244,7 +244,7 @@ ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const Response
     out.sources.push_back(std::move(src));
   }
   if (out.sources.empty())
-    fail(ErrorKind::bad_file, "the SHG setup '" + spec.name + "' finds no second-harmonic source among the responses",
+    fail(spec.bad_value, "the SHG setup '" + spec.name + "' finds no second-harmonic source among the responses",
          spec.where, "add electric-dipole-shg (and magnetic-dipole-shg, electric-quadrupole-shg) to responses");
   // Every i-type source against every c-type source: their cross term is
   // what changes sign between the two 180° domains.
@@ -282,7 +282,7 @@ KerrResult run_kerr(const KerrSpec& spec, const ScenarioResult& res, LatticeKind
     if (p->indices == std::vector<std::string>{"P", "light", "M", "M"}) out.q_part = k;
   }
   if (!out.g_part && !out.q_part)
-    fail(ErrorKind::bad_file, "the magneto-optic question '" + spec.name + "' finds neither the gyration vector nor the "
+    fail(spec.bad_value, "the magneto-optic question '" + spec.name + "' finds neither the gyration vector nor the "
          "quadratic term among the responses", spec.where,
          "add magneto-optic-kerr and magnetic-linear-birefringence to responses");
   if (out.g_part) out.kerr = kerr_readings(res.parts[*out.g_part].forms.back());
@@ -462,6 +462,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
     }
     std::vector<Rational> weights =
         sc.domain_fractions.empty() ? std::vector<Rational>(n, Rational(1, static_cast<std::int64_t>(n))) : sc.domain_fractions;
+    const std::string domain_symbol = n > 1 ? identify(h, cat).type->symbol : std::string();
     if (n > 1)
       for (std::size_t k = 0; k < res.parts.size(); ++k) {
         AllowedForm form = allowed_form(res.parts[k].spec, h, res.frame);
@@ -471,7 +472,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
           for (const auto& v : a.variants) tensors.push_back(v.tensor);
           a.average = weighted_sum(tensors, weights);
         }
-        DomainReport d{k, from, h, std::move(form), std::move(a), sc.domain_fractions, {}};
+        DomainReport d{k, from, h, domain_symbol, std::move(form), std::move(a), sc.domain_fractions, {}};
         for (const auto& f : fields) d.in_field.push_back(field_linear_term(top, h, res.parts[k].spec, f, res.frame, weights));
         res.domains.push_back(std::move(d));
       }
@@ -482,7 +483,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
     br.measurement.where = spec.where;
     set_bar_current(br.measurement, spec.current, sf, parent.system, lattice, metric);
     set_bar_field(br.measurement, spec.field, sf, parent.system, lattice, metric);
-    br.measurement.waveform = parse_waveform(spec.waveform, spec.where);
+    br.measurement.waveform = parse_waveform(spec.waveform, spec.where, spec.bad_value);
     br.measurement.current_rms = spec.current_rms;
     br.measurement.length = spec.length;
     br.measurement.width = spec.width;
@@ -522,7 +523,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
     }
     if (std::find(sc.responses.begin(), sc.responses.end(), spec.response) == sc.responses.end() &&
         std::none_of(res.parts.begin(), res.parts.end(), [&](const PartForms& p) { return p.response_id == r.id; }))
-      fail(ErrorKind::bad_file, "the layout asks for " + r.id + ", which is not among the scenario's responses",
+      fail(spec.bad_value, "the layout asks for " + r.id + ", which is not among the scenario's responses",
            spec.where, "add it to responses = [...]");
     res.layouts.push_back(std::move(lr));
   }

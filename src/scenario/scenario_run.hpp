@@ -84,6 +84,7 @@ struct DomainReport {
   std::size_t part = 0;
   std::size_t from_step = 0;  // chain step whose group the domains break (the cut, or the bulk)
   PointGroup domain_group;    // the group of variant 1: the spontaneous steps only
+  std::string domain_symbol;  // the standard symbol of domain_group's type, for the writers
   AllowedForm form;           // the part's form in domain_group, sample frame
   DomainAnalysis analysis;    // analysis.average is weighted by `fractions` when they are given
   std::vector<Rational> fractions;        // volume fractions of the variants; empty: equal

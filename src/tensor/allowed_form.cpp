@@ -476,36 +476,75 @@ SolverPath solver_path(const PointGroup& group) {
 namespace {
 
 // A group that is monomial in no basis we know is usually a tabulated group
-// seen in a rotated frame. When identify() finds exact standard axes of equal
-// length (rescaled where the ratio of lengths is an exact square), the tensor
-// is solved in the standard setting by orbits and rotated back exactly,
-// instead of by elimination, which is slow for large tensors.
+// seen in a rotated frame. When a frame built from the group's own axes (rescaled
+// to equal lengths where the ratio of lengths is an exact square) makes it
+// monomial, the tensor is solved in that frame by orbits and rotated back exactly,
+// instead of by elimination, which is slow for large tensors. The frame comes from
+// the operations alone: the solver needs no catalogue and reads no file. Which
+// frame is found does not matter: the rows are reduced to the one echelon form.
 struct StandardRoute {
-  const PointGroup* standard = nullptr;
-  Mat3 M; // rows: standard axes in the group's frame, all of squared length N
+  PointGroup standard; // the group seen in the frame M, monomial
+  Mat3 M;              // rows: the frame's axes in the group's frame, all of squared length N
 };
+
+// The axes r rescaled to the squared length of r[0]; false when a ratio is not an exact square.
+bool equal_lengths(std::array<Vec3, 3>& r) {
+  const QSqrt3 n0 = dot(r[0], r[0]);
+  if (!n0.is_rational()) return false;
+  for (int j = 1; j < 3; ++j) {
+    QSqrt3 nj = dot(r[j], r[j]);
+    if (!nj.is_rational()) return false;
+    QSqrt3 scale;
+    if (!exact_sqrt_of_rational(n0.rational_part() / nj.rational_part(), &scale)) return false;
+    r[j] = scaled(r[j], scale);
+  }
+  return true;
+}
+
+// Q g Qᵀ with Q = M/√N: M g Mᵀ / N, exact because N is rational.
+Mat3 seen_in(const Mat3& M, const QSqrt3& inverse_n, const Mat3& g) { return (M * g * M.transpose()).scaled(inverse_n); }
+
+bool monomial_in_one_basis(const std::vector<Operation>& ops, const Mat3& M, const QSqrt3& inverse_n) {
+  bool cartesian = true, circular = true;
+  for (const auto& g : ops) {
+    Mat3 R = seen_in(M, inverse_n, g.R);
+    cartesian = cartesian && cartesian_monomial(R).has_value();
+    circular = circular && circular_monomial(R).has_value();
+    if (!cartesian && !circular) return false;
+  }
+  return true;
+}
 
 std::optional<StandardRoute> standard_route(const PointGroup& group) {
   if (solver_path(group) != SolverPath::general_elimination) return std::nullopt;
-  Identification id;
+  const std::vector<Operation> gens = group.generators();
   try {
-    id = identify(group, GroupCatalogue::builtin());
+    const std::vector<Vec3> lines = candidate_lines(group);
+    for (const auto& zl : lines)
+      for (int zs : {1, -1})
+        for (const auto& xl : lines)
+          for (int xs : {1, -1}) {
+            const Vec3 z = zs > 0 ? zl : -zl, x = xs > 0 ? xl : -xl;
+            if (!dot(x, z).is_zero()) continue;
+            Vec3 y = cross(z, x);
+            if (!rational_length(y)) continue;
+            std::array<Vec3, 3> r{x, y, z};
+            if (!equal_lengths(r)) continue;
+            StandardRoute route;
+            for (int i = 0; i < 3; ++i) route.M.m[i] = r[i];
+            const QSqrt3 inverse_n(Rational(1) / dot(r[0], r[0]).rational_part());
+            if (!monomial_in_one_basis(gens, route.M, inverse_n)) continue;
+            std::vector<Operation> ops;
+            for (const auto& g : group.operations()) ops.push_back({seen_in(route.M, inverse_n, g.R), g.primed});
+            route.standard = PointGroup::from_closed_set(std::move(ops), group.lattice());
+            // The solver uses the canonical generators of the group it is given.
+            if (solver_path(route.standard) == SolverPath::general_elimination) continue;
+            return route;
+          }
   } catch (const Error&) {
-    return std::nullopt;
+    // a frame whose numbers outgrow 64 bits: leave it to elimination
   }
-  std::array<Vec3, 3> r = id.standard_axes;
-  Rational n0 = dot(r[0], r[0]).rational_part();
-  for (int j = 1; j < 3; ++j) {
-    QSqrt3 nj = dot(r[j], r[j]);
-    if (!nj.is_rational()) return std::nullopt;
-    QSqrt3 scale;
-    if (!exact_sqrt_of_rational(n0 / nj.rational_part(), &scale)) return std::nullopt;
-    r[j] = scaled(r[j], scale);
-  }
-  StandardRoute route;
-  route.standard = &id.type->group;
-  for (int i = 0; i < 3; ++i) route.M.m[i] = r[i];
-  return route;
+  return std::nullopt;
 }
 
 // The frame axes (given in the group's frame) seen from the standard setting: M·a.
@@ -531,12 +570,12 @@ AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group) { retu
 
 AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group, const Frame& frame) {
   if (!frame.is_identity()) frame.validate();
-  if (auto route = standard_route(group)) return solve_in_frame(spec, *route->standard, through(*route, frame));
+  if (auto route = standard_route(group)) return solve_in_frame(spec, route->standard, through(*route, frame));
   return solve_in_frame(spec, group, frame);
 }
 
 int independent_count(const TensorSpec& spec, const PointGroup& group) {
-  if (auto route = standard_route(group)) return independent_count(spec, *route->standard);
+  if (auto route = standard_route(group)) return independent_count(spec, route->standard);
   IndexSymmetry sym(spec);
   std::vector<Row> rows = invariant_rows(spec, sym, group);
   return static_cast<int>(rref_blocks(rows, sym.size()).size());

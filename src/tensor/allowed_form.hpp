@@ -12,8 +12,8 @@
 #pragma once
 
 #include "core/surd.hpp"
-#include "geometry/frame.hpp"
 #include "group/point_group.hpp"
+#include "tensor/frame.hpp"
 #include "tensor/index_symmetry.hpp"
 
 #include <array>

@@ -1,4 +1,4 @@
-#include "response/response_report.hpp"
+#include "report/response_report.hpp"
 #include "core/text.hpp"
 
 #include "report/json_text.hpp"

@@ -1,4 +1,4 @@
-#include "report/output_file.hpp"
+#include "core/output_file.hpp"
 
 #include "core/error.hpp"
 

@@ -1,4 +1,4 @@
-#include "geometry/frame.hpp"
+#include "tensor/frame.hpp"
 
 #include "core/error.hpp"
 
