@@ -91,7 +91,7 @@ public:
   // Bits of the larger of |numerator| and denominator: a size measure for pivot choice.
   int bit_height() const;
 
-  bool is_zero() const { return den_ != 0 && num_ == 0; }
+  bool is_zero() const { return num_ == 0; } // a big value's pointer is never null
   bool is_integer() const { return den_ == 1 || (den_ == 0 && big_is_integer()); }
   int sign() const {
     if (den_ == 0) return big_sign();
@@ -103,7 +103,7 @@ public:
   }
 
   friend Rational operator+(const Rational& x, const Rational& y) {
-    if (x.den_ == 0 || y.den_ == 0) return big_sum(x, y);
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_sum(x, y);
     if (x.den_ == y.den_) return from_wide(static_cast<Wide>(x.num_) + y.num_, x.den_);
     return from_wide(static_cast<Wide>(x.num_) * y.den_ + static_cast<Wide>(y.num_) * x.den_,
                      static_cast<Wide>(x.den_) * y.den_);
@@ -118,13 +118,13 @@ public:
   }
   friend Rational operator*(const Rational& x, const Rational& y) {
     if (x.is_zero() || y.is_zero()) return Rational();
-    if (x.den_ == 0 || y.den_ == 0) return big_product(x, y);
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_product(x, y);
     if (x.den_ == 1 && y.den_ == 1) return from_wide(static_cast<Wide>(x.num_) * y.num_, 1);
     return from_wide(static_cast<Wide>(x.num_) * y.num_, static_cast<Wide>(x.den_) * y.den_);
   }
   friend Rational operator/(const Rational& x, const Rational& y) {
     if (y.is_zero()) fail(ErrorKind::internal, "exact division by zero");
-    if (x.den_ == 0 || y.den_ == 0) return big_quotient(x, y);
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_quotient(x, y);
     return from_wide(static_cast<Wide>(x.num_) * y.den_, static_cast<Wide>(x.den_) * y.num_);
   }
   Rational& operator+=(const Rational& y) { return *this = *this + y; }
@@ -140,7 +140,7 @@ public:
   }
   friend bool operator!=(const Rational& x, const Rational& y) { return !(x == y); }
   friend bool operator<(const Rational& x, const Rational& y) {
-    if (x.den_ == 0 || y.den_ == 0) return big_less(x, y);
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_less(x, y);
     return static_cast<Wide>(x.num_) * y.den_ < static_cast<Wide>(y.num_) * x.den_;
   }
   friend bool operator>(const Rational& x, const Rational& y) { return y < x; }
@@ -173,7 +173,7 @@ private:
       d /= a;
     }
     constexpr Wide lim = INT64_MAX;
-    if (n > lim || n < -lim || d > lim) {
+    if (__builtin_expect(n > lim || n < -lim || d > lim, 0)) {
       set_big(n, d);
       return;
     }
@@ -191,21 +191,22 @@ private:
     o.den_ = d;
   }
 
-  // The slow path, out of line (rational.cpp) so that only it sees CLN.
-  void set_big(Wide n, Wide d); // n/d in lowest terms, d > 0, beyond 64 bits
-  static cln::cl_RA* clone(const cln::cl_RA* p);
-  static void release(cln::cl_RA* p) noexcept;
-  [[noreturn]] static void refuse_small();
-  bool big_is_integer() const;
-  int big_sign() const;
-  double big_to_double() const;
-  std::string big_str() const;
-  Rational big_negated() const;
-  static Rational big_sum(const Rational& x, const Rational& y);
-  static Rational big_product(const Rational& x, const Rational& y);
-  static Rational big_quotient(const Rational& x, const Rational& y);
-  static bool big_equal(const Rational& x, const Rational& y);
-  static bool big_less(const Rational& x, const Rational& y);
+  // The slow path, out of line (rational.cpp) so that only it sees CLN, and marked
+  // cold so that the small path stays compact where it is inlined.
+  [[gnu::cold]] void set_big(Wide n, Wide d); // n/d in lowest terms, d > 0, beyond 64 bits
+  [[gnu::cold]] static cln::cl_RA* clone(const cln::cl_RA* p);
+  [[gnu::cold]] static void release(cln::cl_RA* p) noexcept;
+  [[noreturn, gnu::cold]] static void refuse_small();
+  [[gnu::cold]] bool big_is_integer() const;
+  [[gnu::cold]] int big_sign() const;
+  [[gnu::cold]] double big_to_double() const;
+  [[gnu::cold]] std::string big_str() const;
+  [[gnu::cold]] Rational big_negated() const;
+  [[gnu::cold]] static Rational big_sum(const Rational& x, const Rational& y);
+  [[gnu::cold]] static Rational big_product(const Rational& x, const Rational& y);
+  [[gnu::cold]] static Rational big_quotient(const Rational& x, const Rational& y);
+  [[gnu::cold]] static bool big_equal(const Rational& x, const Rational& y);
+  [[gnu::cold]] static bool big_less(const Rational& x, const Rational& y);
 
   // den_ > 0: the value is num_/den_. den_ == 0: the value is *big_, which does
   // not fit in 64 bits, owned by this object. A copy clones the handle, and CLN
