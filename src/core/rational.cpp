@@ -89,6 +89,7 @@ std::string Rational::big_str() const {
 
 Rational Rational::big_negated() const { return from_cln(-*big_); }
 Rational Rational::big_sum(const Rational& x, const Rational& y) { return from_cln(x.to_cln() + y.to_cln()); }
+Rational Rational::big_difference(const Rational& x, const Rational& y) { return from_cln(x.to_cln() - y.to_cln()); }
 Rational Rational::big_product(const Rational& x, const Rational& y) { return from_cln(x.to_cln() * y.to_cln()); }
 Rational Rational::big_quotient(const Rational& x, const Rational& y) { return from_cln(x.to_cln() / y.to_cln()); }
 bool Rational::big_equal(const Rational& x, const Rational& y) { return *x.big_ == *y.big_; }

@@ -108,7 +108,12 @@ public:
     return from_wide(static_cast<Wide>(x.num_) * y.den_ + static_cast<Wide>(y.num_) * x.den_,
                      static_cast<Wide>(x.den_) * y.den_);
   }
-  friend Rational operator-(const Rational& x, const Rational& y) { return x + (-y); }
+  friend Rational operator-(const Rational& x, const Rational& y) {
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_difference(x, y);
+    if (x.den_ == y.den_) return from_wide(static_cast<Wide>(x.num_) - y.num_, x.den_);
+    return from_wide(static_cast<Wide>(x.num_) * y.den_ - static_cast<Wide>(y.num_) * x.den_,
+                     static_cast<Wide>(x.den_) * y.den_);
+  }
   Rational operator-() const {
     if (den_ == 0) return big_negated();
     Rational r;
@@ -203,6 +208,7 @@ private:
   [[gnu::cold]] std::string big_str() const;
   [[gnu::cold]] Rational big_negated() const;
   [[gnu::cold]] static Rational big_sum(const Rational& x, const Rational& y);
+  [[gnu::cold]] static Rational big_difference(const Rational& x, const Rational& y);
   [[gnu::cold]] static Rational big_product(const Rational& x, const Rational& y);
   [[gnu::cold]] static Rational big_quotient(const Rational& x, const Rational& y);
   [[gnu::cold]] static bool big_equal(const Rational& x, const Rational& y);
