@@ -44,7 +44,9 @@ CASES = [
     ["m-3m", "[[V2]2]", "--z", "[111]", "--x", "[1-10]"],
     ["4mm", "V[V2]", "--z", "[110]", "--x", "[001]"],
     ["6mm", "V[V2]", "--z", "[100]", "--x", "[120]"],
-    ["-42m", "chi_ijkl: sym(jkl)", "--z", "[111]", "--x", "[-110]"],
+    ["-42m", "chi_ijkl: sym(jkl)", "--z", "[111]", "--x", "[-110]", "--a", "3.9", "--c", "4.1"],
+    # measured lattice parameters: coefficients beyond 64 bits
+    ["4mm", "[V4]", "--z", "[101]", "--x", "[010]", "--a", "3.9051", "--c", "4.1023"],
 ]
 
 
@@ -79,7 +81,7 @@ def type_ok(value, t):
 
 KNOWN = {"$schema", "$id", "title", "description", "type", "required", "additionalProperties",
          "properties", "items", "minItems", "maxItems", "minLength", "pattern", "enum", "minimum",
-         "maximum", "$ref", "not", "const", "$defs"}
+         "maximum", "$ref", "not", "const", "$defs", "oneOf"}
 
 
 def validate(value, schema, root, path="$"):
@@ -94,6 +96,16 @@ def validate(value, schema, root, path="$"):
         raise Invalid(f"{path}: {value!r} is not one of {schema['enum']}")
     if "const" in schema and value != schema["const"]:
         raise Invalid(f"{path}: {value!r} is not {schema['const']!r}")
+    if "oneOf" in schema:
+        matches = 0
+        for sub in schema["oneOf"]:
+            try:
+                validate(value, sub, root, path)
+                matches += 1
+            except Invalid:
+                pass
+        if matches != 1:
+            raise Invalid(f"{path}: {value!r} matches {matches} of the oneOf alternatives, not one")
     if "not" in schema:
         try:
             validate(value, schema["not"], root, path)
@@ -182,7 +194,7 @@ def semantic_checks(doc):
             for s in term["coefficient_terms"]:
                 if not square_free(s["sqrt_of"]):
                     raise Invalid(f"{c['component']}: sqrt_of {s['sqrt_of']} is not square-free")
-                if gcd(s["numerator"], s["denominator"]) != 1:
+                if gcd(int(s["numerator"]), int(s["denominator"])) != 1:
                     raise Invalid(f"{c['component']}: {s['numerator']}/{s['denominator']} not in lowest terms")
         by_name[c["component"]] = c
     for p in params:

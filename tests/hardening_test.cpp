@@ -2,6 +2,7 @@
 // crash, a hang, silent wrong physics or an internal error. The failure paths are
 // in tests/bad_input/cases.txt; this file holds the cases that must now succeed.
 #include "support/cli_run.hpp"
+#include "support/report_text.hpp"
 
 #include <catch2/catch.hpp>
 
@@ -11,17 +12,7 @@
 using ts::test::run_cli;
 using ts::test::TempDir;
 
-namespace {
-
-// "independent: N" of the first allowed form in a report.
-int independent_in(const std::string& report) {
-  const std::string key = "independent: ";
-  std::size_t p = report.find(key);
-  if (p == std::string::npos) return -1;
-  return std::stoi(report.substr(p + key.size()));
-}
-
-} // namespace
+using ts::test::independent_in;
 
 TEST_CASE("hardening: --tensor keeps the brackets of a Jahn symbol", "[hardening]") {
   // Orthorhombic elastic constants: 9 (Nye, Physical Properties of Crystals, 1957,

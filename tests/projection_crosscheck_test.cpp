@@ -363,7 +363,7 @@ void check_kind_in_group(const Kind& kind, const PointGroup& group, const std::s
 }
 
 // The exact solver's 64-bit rationals once overflowed during general elimination;
-// it now falls back to big rationals. The random sweep still records any overflow
+// Rational now holds big numbers itself. The random sweep still records any overflow
 // (and the case below requires none), so that one cannot hide wrong counts elsewhere.
 bool is_overflow(const Error& e) {
   return e.kind() == ErrorKind::too_large && e.problem().find("overflow") != std::string::npos;

@@ -38,13 +38,14 @@ def components(report):
 def exact_components(report):
     """Nonzero components as {name: {parameter: coefficient}}, each coefficient
     exact: a tuple of (Fraction, radicand) terms standing for the sum of
-    fraction * sqrt(radicand), e.g. ((Fraction(1, 2), 3),) for sqrt(3)/2."""
+    fraction * sqrt(radicand), e.g. ((Fraction(1, 2), 3),) for sqrt(3)/2.
+    Numerators and denominators beyond 64 bits arrive as strings of digits."""
     out = {}
     for c in report["components"]:
         terms = {}
         for t in c["terms"]:
             terms[t["parameter"]] = tuple(
-                (Fraction(k["numerator"], k["denominator"]), k["sqrt_of"]) for k in t["coefficient_terms"])
+                (Fraction(int(k["numerator"]), int(k["denominator"])), k["sqrt_of"]) for k in t["coefficient_terms"])
         out[c["component"]] = terms
     return out
 

@@ -1,6 +1,6 @@
-// Q(√3) on arbitrary-precision rationals (CLN). Used only where exact
-// elimination outgrows 64-bit numbers (large tensors in rotated frames); the
-// result is converted back to QSqrt3, and refused if it does not fit.
+// Q(√3) on CLN's arbitrary-precision rationals, for code that works on big
+// numbers throughout (identification of rotated groups). Conversions to and
+// from QSqrt3 are lossless: Rational itself holds numbers of any size.
 #pragma once
 
 #include "core/qsqrt3.hpp"
@@ -15,8 +15,7 @@ public:
   BigQSqrt3() : a_(0), b_(0) {}
   BigQSqrt3(const cln::cl_RA& a, const cln::cl_RA& b) : a_(a), b_(b) {}
   explicit BigQSqrt3(const QSqrt3& q)
-      : a_(cln::cl_RA(q.rational_part().num()) / cln::cl_RA(q.rational_part().den())),
-        b_(cln::cl_RA(q.sqrt3_part().num()) / cln::cl_RA(q.sqrt3_part().den())) {}
+      : a_(q.rational_part().to_cln()), b_(q.sqrt3_part().to_cln()) {}
   bool is_zero() const { return cln::zerop(a_) && cln::zerop(b_); }
   bool is_rational() const { return cln::zerop(b_); }
   int sign() const; // of a + b√3, exactly
@@ -39,8 +38,8 @@ public:
     };
     return std::max(bits(a_), bits(b_));
   }
-  // Back to 64-bit form; throws Error(internal) if a part does not fit.
-  QSqrt3 to_small() const;
+  // Back to QSqrt3, exactly (parts that fit in 64 bits are stored small again).
+  QSqrt3 to_small() const { return QSqrt3(Rational::from_cln(a_), Rational::from_cln(b_)); }
 
 private:
   cln::cl_RA a_, b_;

@@ -6,22 +6,11 @@ namespace {
 std::string sqrt3_term(const Rational& b) {
   // b·√3 written as "sqrt(3)", "-sqrt(3)/2", "3*sqrt(3)/4".
   std::string s = b.sign() < 0 ? "-" : "";
-  std::int64_t n = b.num() < 0 ? -b.num() : b.num();
-  if (n != 1) s += std::to_string(n) + "*";
+  Rational n = b.numerator().abs();
+  if (n != Rational(1)) s += n.str() + "*";
   s += "sqrt(3)";
-  if (b.den() != 1) s += "/" + std::to_string(b.den());
+  if (!b.is_integer()) s += "/" + b.denominator().str();
   return s;
-}
-
-bool is_square(std::int64_t n, std::int64_t* root) {
-  if (n < 0) return false;
-  auto r = static_cast<std::int64_t>(std::llround(std::sqrt(static_cast<double>(n))));
-  for (std::int64_t c = r > 1 ? r - 1 : 0; c <= r + 1; ++c)
-    if (c * c == n) {
-      *root = c;
-      return true;
-    }
-  return false;
 }
 } // namespace
 
@@ -34,16 +23,15 @@ std::string QSqrt3::str() const {
 }
 
 bool exact_sqrt_of_rational(const Rational& q, QSqrt3* root) {
-  std::int64_t rn, rd;
+  Rational r;
   if (q.sign() < 0) return false;
-  if (is_square(q.num(), &rn) && is_square(q.den(), &rd)) {
-    *root = QSqrt3(Rational(rn, rd));
+  if (rational_sqrt(q, &r)) {
+    *root = QSqrt3(r);
     return true;
   }
   // q = 3 r^2  <=>  sqrt(q) = r·√3
-  Rational r2 = q / Rational(3);
-  if (is_square(r2.num(), &rn) && is_square(r2.den(), &rd)) {
-    *root = QSqrt3(0, Rational(rn, rd));
+  if (rational_sqrt(q / Rational(3), &r)) {
+    *root = QSqrt3(0, r);
     return true;
   }
   return false;

@@ -8,15 +8,17 @@
 
 #include <cmath>
 #include <string>
+#include <utility>
 
 namespace ts {
 
 class QSqrt3 {
 public:
   QSqrt3() = default;
-  QSqrt3(Rational a) : a_(a) {} // NOLINT: rationals convert implicitly
+  // By value and moved: a Rational has a destructor, so temporaries are not free.
+  QSqrt3(Rational a) : a_(std::move(a)) {} // NOLINT: rationals convert implicitly
   QSqrt3(std::int64_t a) : a_(a) {} // NOLINT
-  QSqrt3(Rational a, Rational b) : a_(a), b_(b) {}
+  QSqrt3(Rational a, Rational b) : a_(std::move(a)), b_(std::move(b)) {}
   static QSqrt3 sqrt3() { return QSqrt3(0, 1); }
 
   const Rational& rational_part() const { return a_; }

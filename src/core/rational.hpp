@@ -1,15 +1,22 @@
-// Exact rational numbers on 64-bit integers, always in lowest terms with a
-// positive denominator. Every operation checks for overflow and throws rather
-// than wrap: a silently wrapped numerator would turn an allowed component into
-// a wrong one. The numbers met in point-group work are small, so a fixed-size
-// representation is fast and, with the checks, safe.
+// Exact rational numbers, always in lowest terms with a positive denominator.
+// Numbers that fit in 64 bits (the entries of point operations, and nearly all
+// the numbers of a catalogue) are kept inline and computed with 128-bit
+// intermediates: that path is the hot one and allocates nothing. A result that
+// outgrows 64 bits becomes an arbitrary-precision rational (CLN's cl_RA, which
+// GiNaC brings along) instead of wrapping or failing: measured lattice
+// parameters give tensor coefficients in rotated frames with 30 digits and
+// more. Every result that fits in 64 bits again is stored small, so each value
+// has exactly one representation and equality is a comparison of fields.
 #pragma once
 
 #include "core/error.hpp"
 
 #include <cstdint>
-#include <numeric>
 #include <string>
+
+namespace cln {
+class cl_RA;
+}
 
 namespace ts {
 
@@ -18,39 +25,111 @@ __extension__ typedef __int128 Wide;
 
 class Rational {
 public:
-  constexpr Rational() = default;
-  constexpr Rational(std::int64_t n) : num_(n) {} // NOLINT: integers convert implicitly
+  Rational() : num_(0), den_(1) {}
+  Rational(std::int64_t n) : num_(n), den_(1) { // NOLINT: integers convert implicitly
+    if (n == INT64_MIN) set_big(n, 1);           // keeps -x small for every small x
+  }
   Rational(std::int64_t n, std::int64_t d) {
     if (d == 0) fail(ErrorKind::internal, "rational number with zero denominator");
     set(static_cast<Wide>(n), static_cast<Wide>(d));
   }
+  Rational(const Rational& o) : den_(o.den_) {
+    if (den_ != 0) num_ = o.num_;
+    else big_ = clone(o.big_);
+  }
+  Rational(Rational&& o) noexcept : den_(o.den_) {
+    if (den_ != 0) {
+      num_ = o.num_;
+    } else {
+      big_ = o.big_;
+      o.den_ = 1;
+      o.num_ = 0;
+    }
+  }
+  Rational& operator=(const Rational& o) {
+    if (den_ != 0 && o.den_ != 0) {
+      num_ = o.num_;
+      den_ = o.den_;
+    } else if (this != &o) {
+      Rational copy(o);
+      swap(copy);
+    }
+    return *this;
+  }
+  Rational& operator=(Rational&& o) noexcept {
+    if (den_ != 0 && o.den_ != 0) {
+      num_ = o.num_;
+      den_ = o.den_;
+    } else {
+      swap(o);
+    }
+    return *this;
+  }
+  ~Rational() {
+    if (den_ == 0) release(big_);
+  }
 
-  std::int64_t num() const { return num_; }
-  std::int64_t den() const { return den_; }
-  bool is_zero() const { return num_ == 0; }
-  bool is_integer() const { return den_ == 1; }
-  int sign() const { return (num_ > 0) - (num_ < 0); }
-  double to_double() const { return static_cast<double>(num_) / static_cast<double>(den_); }
+  // The exact value on CLN, and back (stored small whenever it fits).
+  cln::cl_RA to_cln() const;
+  static Rational from_cln(const cln::cl_RA& value);
+
+  bool is_small() const { return den_ != 0; }
+  // The 64-bit numerator and denominator, for callers whose numbers are small by
+  // construction (entries of point operations); a big value is refused with a
+  // too_large error, never truncated. Everything else uses numerator(), denominator().
+  std::int64_t num() const {
+    if (den_ == 0) refuse_small();
+    return num_;
+  }
+  std::int64_t den() const {
+    if (den_ == 0) refuse_small();
+    return den_;
+  }
+  Rational numerator() const;   // an integer, of any size
+  Rational denominator() const; // a positive integer, of any size
+  Rational abs() const { return sign() < 0 ? -*this : *this; }
+  // Bits of the larger of |numerator| and denominator: a size measure for pivot choice.
+  int bit_height() const;
+
+  bool is_zero() const { return num_ == 0; } // a big value's pointer is never null
+  bool is_integer() const { return den_ == 1 || (den_ == 0 && big_is_integer()); }
+  int sign() const {
+    if (den_ == 0) return big_sign();
+    return (num_ > 0) - (num_ < 0);
+  }
+  double to_double() const {
+    if (den_ == 0) return big_to_double();
+    return static_cast<double>(num_) / static_cast<double>(den_);
+  }
 
   friend Rational operator+(const Rational& x, const Rational& y) {
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_sum(x, y);
     if (x.den_ == y.den_) return from_wide(static_cast<Wide>(x.num_) + y.num_, x.den_);
     return from_wide(static_cast<Wide>(x.num_) * y.den_ + static_cast<Wide>(y.num_) * x.den_,
                      static_cast<Wide>(x.den_) * y.den_);
   }
-  friend Rational operator-(const Rational& x, const Rational& y) { return x + (-y); }
+  friend Rational operator-(const Rational& x, const Rational& y) {
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_difference(x, y);
+    if (x.den_ == y.den_) return from_wide(static_cast<Wide>(x.num_) - y.num_, x.den_);
+    return from_wide(static_cast<Wide>(x.num_) * y.den_ - static_cast<Wide>(y.num_) * x.den_,
+                     static_cast<Wide>(x.den_) * y.den_);
+  }
   Rational operator-() const {
+    if (den_ == 0) return big_negated();
     Rational r;
-    r.num_ = -num_;
+    r.num_ = -num_; // small numerators lie in [-INT64_MAX, INT64_MAX]
     r.den_ = den_;
     return r;
   }
   friend Rational operator*(const Rational& x, const Rational& y) {
-    if (x.num_ == 0 || y.num_ == 0) return Rational();
+    if (x.is_zero() || y.is_zero()) return Rational();
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_product(x, y);
     if (x.den_ == 1 && y.den_ == 1) return from_wide(static_cast<Wide>(x.num_) * y.num_, 1);
     return from_wide(static_cast<Wide>(x.num_) * y.num_, static_cast<Wide>(x.den_) * y.den_);
   }
   friend Rational operator/(const Rational& x, const Rational& y) {
-    if (y.num_ == 0) fail(ErrorKind::internal, "exact division by zero");
+    if (y.is_zero()) fail(ErrorKind::internal, "exact division by zero");
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_quotient(x, y);
     return from_wide(static_cast<Wide>(x.num_) * y.den_, static_cast<Wide>(x.den_) * y.num_);
   }
   Rational& operator+=(const Rational& y) { return *this = *this + y; }
@@ -58,17 +137,22 @@ public:
   Rational& operator*=(const Rational& y) { return *this = *this * y; }
   Rational& operator/=(const Rational& y) { return *this = *this / y; }
 
+  // One representation per value: a small and a big number always differ.
   friend bool operator==(const Rational& x, const Rational& y) {
-    return x.num_ == y.num_ && x.den_ == y.den_;
+    if (x.den_ != y.den_) return false;
+    if (x.den_ != 0) return x.num_ == y.num_;
+    return big_equal(x, y);
   }
   friend bool operator!=(const Rational& x, const Rational& y) { return !(x == y); }
   friend bool operator<(const Rational& x, const Rational& y) {
+    if (__builtin_expect(x.den_ == 0 || y.den_ == 0, 0)) return big_less(x, y);
     return static_cast<Wide>(x.num_) * y.den_ < static_cast<Wide>(y.num_) * x.den_;
   }
   friend bool operator>(const Rational& x, const Rational& y) { return y < x; }
   friend bool operator<=(const Rational& x, const Rational& y) { return !(y < x); }
 
   std::string str() const {
+    if (den_ == 0) return big_str();
     return den_ == 1 ? std::to_string(num_) : std::to_string(num_) + "/" + std::to_string(den_);
   }
 
@@ -94,14 +178,55 @@ private:
       d /= a;
     }
     constexpr Wide lim = INT64_MAX;
-    if (n > lim || n < -lim || d > lim)
-      fail(ErrorKind::too_large, "exact arithmetic overflow (a number outgrew 64 bits)", "",
-           "smaller numbers: lattice parameters with fewer significant digits, smaller Miller indices");
+    if (__builtin_expect(n > lim || n < -lim || d > lim, 0)) {
+      set_big(n, d);
+      return;
+    }
     num_ = static_cast<std::int64_t>(n);
     den_ = static_cast<std::int64_t>(d);
   }
-  std::int64_t num_ = 0;
-  std::int64_t den_ = 1;
+  void swap(Rational& o) noexcept {
+    std::int64_t n = num_, d = den_;
+    cln::cl_RA* p = big_;
+    if (o.den_ != 0) num_ = o.num_;
+    else big_ = o.big_;
+    den_ = o.den_;
+    if (d != 0) o.num_ = n;
+    else o.big_ = p;
+    o.den_ = d;
+  }
+
+  // The slow path, out of line (rational.cpp) so that only it sees CLN, and marked
+  // cold so that the small path stays compact where it is inlined.
+  [[gnu::cold]] void set_big(Wide n, Wide d); // n/d in lowest terms, d > 0, beyond 64 bits
+  [[gnu::cold]] static cln::cl_RA* clone(const cln::cl_RA* p);
+  [[gnu::cold]] static void release(cln::cl_RA* p) noexcept;
+  [[noreturn, gnu::cold]] static void refuse_small();
+  [[gnu::cold]] bool big_is_integer() const;
+  [[gnu::cold]] int big_sign() const;
+  [[gnu::cold]] double big_to_double() const;
+  [[gnu::cold]] std::string big_str() const;
+  [[gnu::cold]] Rational big_negated() const;
+  [[gnu::cold]] static Rational big_sum(const Rational& x, const Rational& y);
+  [[gnu::cold]] static Rational big_difference(const Rational& x, const Rational& y);
+  [[gnu::cold]] static Rational big_product(const Rational& x, const Rational& y);
+  [[gnu::cold]] static Rational big_quotient(const Rational& x, const Rational& y);
+  [[gnu::cold]] static bool big_equal(const Rational& x, const Rational& y);
+  [[gnu::cold]] static bool big_less(const Rational& x, const Rational& y);
+
+  // den_ > 0: the value is num_/den_. den_ == 0: the value is *big_, which does
+  // not fit in 64 bits, owned by this object. A copy clones the handle, and CLN
+  // shares the digits behind it with reference counts that are not atomic: a big
+  // value belongs to the thread that made it (big values arise inside one solve
+  // and never enter the group and response catalogues that threads share).
+  union {
+    std::int64_t num_;
+    cln::cl_RA* big_;
+  };
+  std::int64_t den_;
 };
+
+// True when q ≥ 0 is the square of a rational; then *root receives the non-negative root.
+bool rational_sqrt(const Rational& q, Rational* root);
 
 } // namespace ts

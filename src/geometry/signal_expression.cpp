@@ -35,7 +35,7 @@ const GiNaC::symbol& ExpressionSymbols::angle(Angle a) { return named(angle_symb
 GiNaC::ex surd_ex(const Surd& s) {
   GiNaC::ex e = 0;
   for (const auto& [radicand, r] : s.terms()) {
-    GiNaC::ex c = GiNaC::numeric(r.num()) / GiNaC::numeric(r.den());
+    GiNaC::ex c = GiNaC::numeric(cln::cl_N(r.to_cln()));
     // sqrt of an ex, not of a numeric: GiNaC's numeric overload of sqrt returns a float.
     e += radicand == 1 ? c : c * GiNaC::sqrt(GiNaC::ex(GiNaC::numeric(radicand)));
   }

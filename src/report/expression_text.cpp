@@ -8,10 +8,10 @@ namespace {
 
 std::string rational_latex(const Rational& r, const std::string& times) {
   // r·times with r > 0 written as a fraction.
-  std::string num = std::to_string(r.num());
-  if (times.empty()) return r.den() == 1 ? num : "\\frac{" + num + "}{" + std::to_string(r.den()) + "}";
-  std::string top = r.num() == 1 ? times : num + times;
-  return r.den() == 1 ? top : "\\frac{" + top + "}{" + std::to_string(r.den()) + "}";
+  std::string num = r.numerator().str();
+  if (times.empty()) return r.is_integer() ? num : "\\frac{" + num + "}{" + r.denominator().str() + "}";
+  std::string top = r.numerator() == Rational(1) ? times : num + times;
+  return r.is_integer() ? top : "\\frac{" + top + "}{" + r.denominator().str() + "}";
 }
 
 // One term r·√s without its sign.
@@ -22,8 +22,8 @@ std::string term_text(const Rational& mag, std::int64_t rad, TextStyle style) {
   }
   std::string root = "sqrt(" + std::to_string(rad) + ")";
   if (rad == 1) return mag.str();
-  std::string s = mag.num() == 1 ? root : std::to_string(mag.num()) + "*" + root;
-  if (mag.den() != 1) s += "/" + std::to_string(mag.den());
+  std::string s = mag.numerator() == Rational(1) ? root : mag.numerator().str() + "*" + root;
+  if (!mag.is_integer()) s += "/" + mag.denominator().str();
   return s;
 }
 

@@ -15,6 +15,20 @@ const int voigt_digits[6][2] = {{0, 0}, {1, 1}, {2, 2}, {1, 2}, {0, 2}, {0, 1}};
 
 int code3(int a, int b, int c) { return (a * 3 + b) * 3 + c; }
 
+// One term c·√rad of an exact coefficient. JSON readers keep integers exactly only up
+// to 53 or 64 bits, so (common practice) a numerator or denominator beyond 64 bits
+// is written as a string of decimal digits.
+toml::table surd_term_json(const Rational& c, std::int64_t rad) {
+  toml::table t{{"sqrt_of", rad}};
+  auto put = [&](const char* key, const Rational& v) {
+    if (v.is_small()) t.insert_or_assign(key, v.num());
+    else t.insert_or_assign(key, v.str());
+  };
+  put("numerator", c.numerator());
+  put("denominator", c.denominator());
+  return t;
+}
+
 bool symmetric_pair(const AllowedForm& f, int p, int q) {
   const auto& s = *f.symmetry;
   for (int code = 0; code < s.full_size(); ++code) {
@@ -170,7 +184,7 @@ void form_json(const AllowedForm& f, const GroupContext& g, const FrameContext& 
     for (const auto& t : v) {
       toml::array coef;
       for (const auto& [rad, c] : t.coefficient.terms())
-        coef.push_back(toml::table{{"numerator", c.num()}, {"denominator", c.den()}, {"sqrt_of", rad}});
+        coef.push_back(surd_term_json(c, rad));
       terms.push_back(toml::table{{"parameter", f.parameter_name(t.parameter)},
                                   {"coefficient", surd_text(t.coefficient)},
                                   {"coefficient_terms", coef}});

@@ -1,6 +1,5 @@
 #include "tensor/allowed_form.hpp"
 
-#include "core/big_qsqrt3.hpp"
 #include "core/error.hpp"
 #include "group/identify.hpp"
 
@@ -191,26 +190,23 @@ std::vector<Row> circular_to_cartesian(const IndexSymmetry& sym,
   return rows;
 }
 
-std::int64_t height(const QSqrt3& x) {
-  auto mag = [](const Rational& v) { return std::max(v.num() < 0 ? -v.num() : v.num(), v.den()); };
-  return std::max(mag(x.rational_part()), mag(x.sqrt3_part()));
-}
-std::int64_t height(const BigQSqrt3& x) { return x.height(); }
+// Bits of the largest numerator or denominator: the size of the exact number.
+int height(const QSqrt3& x) { return std::max(x.rational_part().bit_height(), x.sqrt3_part().bit_height()); }
 
-// Gauss-Jordan elimination in place; returns pivot columns. Rows that vanish are removed.
-template <typename F>
-std::vector<int> rref_in(std::vector<std::vector<F>>& rows, int ncols) {
+// Gauss-Jordan elimination in place; returns pivot columns. Rows that vanish are
+// removed. Numbers that outgrow 64 bits become big rationals inside Rational.
+std::vector<int> rref(std::vector<Row>& rows, int ncols) {
   std::vector<int> pivots;
   std::size_t r = 0;
   for (int c = 0; c < ncols && r < rows.size(); ++c) {
     // Pivot on the simplest nonzero entry (rational and small before irrational
     // or large): keeps the exact numbers short through the elimination.
     std::size_t p = rows.size();
-    std::pair<bool, std::int64_t> best{};
+    std::pair<bool, int> best{};
     for (std::size_t q = r; q < rows.size(); ++q) {
-      const F& x = rows[q][c];
+      const QSqrt3& x = rows[q][c];
       if (x.is_zero()) continue;
-      std::pair<bool, std::int64_t> h{!x.is_rational(), height(x)};
+      std::pair<bool, int> h{!x.is_rational(), height(x)};
       if (p == rows.size() || h < best) {
         p = q;
         best = h;
@@ -218,12 +214,12 @@ std::vector<int> rref_in(std::vector<std::vector<F>>& rows, int ncols) {
     }
     if (p == rows.size()) continue;
     std::swap(rows[r], rows[p]);
-    F inv = F(QSqrt3(1)) / rows[r][c];
+    QSqrt3 inv = QSqrt3(1) / rows[r][c];
     for (int j = c; j < ncols; ++j)
       if (!rows[r][j].is_zero()) rows[r][j] = rows[r][j] * inv;
     for (std::size_t i = 0; i < rows.size(); ++i) {
       if (i == r || rows[i][c].is_zero()) continue;
-      F f = rows[i][c];
+      QSqrt3 f = rows[i][c];
       for (int j = c; j < ncols; ++j)
         if (!rows[r][j].is_zero()) rows[i][j] -= f * rows[r][j];
     }
@@ -231,31 +227,6 @@ std::vector<int> rref_in(std::vector<std::vector<F>>& rows, int ncols) {
     ++r;
   }
   rows.resize(r);
-  return pivots;
-}
-
-// Elimination on 64-bit rationals, redone on CLN's big rationals when a number
-// outgrows them (the reduced result is small again and converts back).
-std::vector<int> rref(std::vector<Row>& rows, int ncols) {
-  std::vector<Row> copy = rows;
-  try {
-    return rref_in(rows, ncols);
-  } catch (const Error& e) {
-    if (e.kind() != ErrorKind::too_large) throw; // a 64-bit overflow: redo on big rationals
-  }
-  std::vector<std::vector<BigQSqrt3>> big;
-  for (const auto& row : copy) {
-    std::vector<BigQSqrt3> b;
-    for (const auto& x : row) b.emplace_back(x);
-    big.push_back(std::move(b));
-  }
-  std::vector<int> pivots = rref_in(big, ncols);
-  rows.clear();
-  for (const auto& b : big) {
-    Row row;
-    for (const auto& x : b) row.push_back(x.to_small());
-    rows.push_back(std::move(row));
-  }
   return pivots;
 }
 
@@ -431,21 +402,20 @@ AllowedForm build_form(const TensorSpec& spec, std::shared_ptr<const IndexSymmet
   if (!unit)
     for (int d = 0; d < 3; ++d) root_len2[d] = Surd::sqrt_of(len2[d]);
   // Normalising the axes multiplies a component by sqrt(q_pivot / q_c), q the product of
-  // the squared lengths of its axes. Measured lattice parameters make those products
-  // outgrow 64 bits (a (101) normal of a = 3.91, c = 4.1 has |n|^2 ~ 5e10), so the even
-  // powers are taken on big rationals and only the odd square roots stay as surds.
+  // the squared lengths of its axes. The even powers are exact rational factors (big
+  // ones for measured lattice parameters: a (101) normal of a = 3.91, c = 4.1 has
+  // |n|^2 ~ 5e10) and only the odd square roots stay as surds, so radicands stay small.
   auto normalised = [&](const QSqrt3& entry, const std::array<int, 3>& kj, const std::array<int, 3>& kc) {
-    BigQSqrt3 scaled(entry);
+    QSqrt3 scaled = entry;
     std::vector<int> odd;
     for (int d = 0; d < 3; ++d) {
       int e = kj[d] - kc[d];
       int half = e >= 0 ? e / 2 : -((-e + 1) / 2); // floor(e / 2)
-      cln::cl_RA l(cln::cl_RA(len2[d].num()) / cln::cl_RA(len2[d].den()));
       for (int i = 0; i < (half >= 0 ? half : -half); ++i)
-        scaled = half >= 0 ? scaled * BigQSqrt3(l, 0) : scaled / BigQSqrt3(l, 0);
+        scaled = half >= 0 ? scaled * QSqrt3(len2[d]) : scaled / QSqrt3(len2[d]);
       if (e - 2 * half) odd.push_back(d);
     }
-    Surd coef(scaled.to_small());
+    Surd coef(scaled);
     for (int d : odd) coef = coef * root_len2[d];
     return coef;
   };
