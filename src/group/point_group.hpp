@@ -51,6 +51,8 @@ public:
   friend bool operator!=(const PointGroup& a, const PointGroup& b) { return !(a == b); }
 
 private:
+  // Operations taken from ops_ in their order: already canonical, so not sorted again.
+  PointGroup sorted_subset(std::vector<Operation> ops) const;
   std::vector<Operation> ops_;
   LatticeKind lattice_ = LatticeKind::orthogonal;
   // Filled on first use, so a PointGroup shared between threads must have had
