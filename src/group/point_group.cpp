@@ -66,6 +66,15 @@ PointGroup PointGroup::from_closed_set(std::vector<Operation> ops, LatticeKind l
   return g;
 }
 
+PointGroup PointGroup::from_canonical(std::vector<Operation> ops, LatticeKind lattice,
+                                      std::vector<Operation> generators) {
+  PointGroup g;
+  g.ops_ = std::move(ops);
+  g.lattice_ = lattice;
+  g.generators_cache_ = std::move(generators);
+  return g;
+}
+
 PointGroup PointGroup::sorted_subset(std::vector<Operation> ops) const {
   PointGroup g;
   g.ops_ = std::move(ops);
