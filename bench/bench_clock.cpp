@@ -2,7 +2,9 @@
 
 #include "core/error.hpp"
 
+#include <fcntl.h>
 #include <poll.h>
+#include <spawn.h>
 #include <signal.h>
 #include <sys/resource.h>
 #include <sys/wait.h>
@@ -37,6 +39,26 @@ Timing time_repeated(int repeats, const std::function<void()>& job) {
   std::vector<double> t;
   for (int i = 0; i < std::max(1, repeats); ++i) t.push_back(seconds_of(job));
   return {t.front(), median_of(t), static_cast<int>(t.size())};
+}
+
+double seconds_of_process(const std::vector<std::string>& argv, int* status) {
+  std::vector<char*> args;
+  for (const auto& a : argv) args.push_back(const_cast<char*>(a.c_str()));
+  args.push_back(nullptr);
+  posix_spawn_file_actions_t io;
+  posix_spawn_file_actions_init(&io);
+  posix_spawn_file_actions_addopen(&io, 0, "/dev/null", O_RDONLY, 0);
+  posix_spawn_file_actions_addopen(&io, 1, "/dev/null", O_WRONLY, 0);
+  posix_spawn_file_actions_addopen(&io, 2, "/dev/null", O_WRONLY, 0);
+  *status = -1;
+  auto t0 = Clock::now();
+  pid_t pid = 0;
+  int rc = posix_spawn(&pid, args[0], &io, nullptr, args.data(), environ);
+  int wstatus = 0;
+  if (rc == 0 && waitpid(pid, &wstatus, 0) == pid && WIFEXITED(wstatus)) *status = WEXITSTATUS(wstatus);
+  auto t1 = Clock::now();
+  posix_spawn_file_actions_destroy(&io);
+  return std::chrono::duration<double>(t1 - t0).count();
 }
 
 double peak_memory_mib() {

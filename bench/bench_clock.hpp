@@ -36,6 +36,11 @@ struct ProbeOutcome {
 // figures after it. job returns the number of independent components.
 ProbeOutcome run_in_child(int repeats, double timeout, const std::function<int()>& job);
 
+// Wall time of one run of a program (argv[0] is its path) as a child process,
+// standard output and error sent to /dev/null; the exit status goes to *status
+// (-1 when it could not be started or did not exit normally).
+double seconds_of_process(const std::vector<std::string>& argv, int* status);
+
 // Peak resident set size in MiB (getrusage ru_maxrss): of this process, and of
 // the largest child that has been waited for.
 double peak_memory_mib();

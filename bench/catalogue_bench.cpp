@@ -30,6 +30,7 @@
 #include "group/group_catalogue.hpp"
 #include "tensor/allowed_form.hpp"
 
+#include <algorithm>
 #include <cstdio>
 #include <cstdlib>
 #include <functional>
@@ -194,6 +195,51 @@ void time_probe_form(int repeats, double timeout, const std::string& what, const
   print_figure(what, value, targeted ? target_ms(200) : "no target", why);
 }
 
+// Start-up: the command-line tool run as a child process, against a bare
+// `--version` (the floor: loading the program and its libraries). Every
+// command that loads the group catalogue should stay within 1.5 times of it.
+// Short runs are noisy, so each takes at least 11 runs.
+void print_startup_figures(int repeats) {
+  std::printf("\n");
+  const int runs = std::max(repeats, 11);
+  const std::string bin = TENSORSIEVE_BINARY, src = TENSORSIEVE_SOURCE_DIR;
+  const std::vector<std::vector<std::string>> commands = {
+      {"--version"},
+      {"groups"},
+      {"group", "4mm"},
+      {"form", "4mm", "V"},
+      {"response", "conductivity", "m-3m"},
+      {"run", src + "/examples/strained-film.toml"},
+  };
+  double floor = 0;
+  for (const auto& args : commands) {
+    std::vector<std::string> argv{bin};
+    argv.insert(argv.end(), args.begin(), args.end());
+    std::vector<double> t;
+    int status = 0;
+    for (int i = 0; i < runs && status == 0; ++i) t.push_back(seconds_of_process(argv, &status));
+    std::string label = "start-up: tensorsieve";
+    for (const auto& a : args) label += " " + (a.rfind(src + "/", 0) == 0 ? a.substr(src.size() + 1) : a);
+    if (status != 0) {
+      print_figure(label, "no result", "no target", "FAILED: exit status " + std::to_string(status));
+      continue;
+    }
+    const double median = median_of(t);
+    if (&args == &commands.front()) {
+      floor = median;
+      print_figure(label + " (the floor)", duration_text(median));
+      continue;
+    }
+    if (floor == 0) { // --version itself failed: no floor to compare with
+      print_figure(label, duration_text(median));
+      continue;
+    }
+    char ratio[32];
+    std::snprintf(ratio, sizeof ratio, ", %.2fx", median / floor);
+    print_figure(label, duration_text(median), "< 1.5x --version", verdict(median < 1.5 * floor) + ratio);
+  }
+}
+
 int run(const Args& args) {
   const int R = args.repeats;
   std::vector<TensorSpec> specs;
@@ -217,8 +263,11 @@ int run(const Args& args) {
   Timing load = time_repeated(R, [&] { cat = GroupCatalogue::load(data); });
   print_figure("group catalogue load (GroupCatalogue::load), first run", duration_text(load.first));
   print_figure("group catalogue load (GroupCatalogue::load), median", duration_text(load.median));
+  Timing table = time_repeated(R, [&] { cat = GroupCatalogue::load_with_table(data); });
+  print_figure("group catalogue from the built table (load_with_table), median", duration_text(table.median));
   const auto types = cat->types();
   print_figure("magnetic point-group types in the catalogue", std::to_string(types.size()));
+  print_startup_figures(R);
 
   // ---- the whole catalogue of forms --------------------------------------------
   const long n_forms = static_cast<long>(specs.size() * types.size());

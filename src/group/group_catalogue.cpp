@@ -5,7 +5,6 @@
 
 #include <algorithm>
 #include <filesystem>
-#include <mutex>
 #include <set>
 
 namespace fs = std::filesystem;
@@ -210,21 +209,6 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::load(const std::string& data_dir
   }
   cat->derive_magnetic_groups();
   return cat;
-}
-
-const GroupCatalogue& GroupCatalogue::builtin() {
-  static std::unique_ptr<GroupCatalogue> cat;
-  static std::once_flag once;
-  std::call_once(once, [] {
-    std::unique_ptr<GroupCatalogue> loaded = load(data_directory());
-    // PointGroup fills its generator cache on first use; the catalogue's groups
-    // are shared by every thread (screening runs in a pool), so fill the caches
-    // here, before the catalogue is published, and they are only read after.
-    for (const auto& c : loaded->classes_) c.group.generators();
-    for (const auto& g : loaded->groups_) g.group.generators();
-    cat = std::move(loaded);
-  });
-  return *cat;
 }
 
 std::vector<const CrystalClass*> GroupCatalogue::standard_classes() const {

@@ -8,9 +8,11 @@
 #include "group/point_group.hpp"
 
 #include <array>
+#include <cstdint>
 #include <map>
 #include <memory>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace ts {
@@ -59,8 +61,16 @@ class GroupCatalogue {
 public:
   // Loads every *.toml under dir/groups. Throws Error(bad_file) with file:line:column.
   static std::unique_ptr<GroupCatalogue> load(const std::string& data_dir);
+  // As load(), but read from the table built into the library (group_table.hpp)
+  // when dir/groups holds exactly the files the table was derived from.
+  static std::unique_ptr<GroupCatalogue> load_with_table(const std::string& data_dir);
   // The catalogue from data_directory(), loaded once.
   static const GroupCatalogue& builtin();
+
+  // The whole derived catalogue as the text of a group table, and back; the
+  // table names its files relative to groups/, so from_table places them in data_dir.
+  std::string table_text(std::uint64_t fingerprint) const;
+  static std::unique_ptr<GroupCatalogue> from_table(std::string_view table, const std::string& data_dir);
 
   const std::vector<CrystalClass>& crystal_classes() const { return classes_; } // every setting
   std::vector<const CrystalClass*> standard_classes() const;                   // the 32

@@ -288,7 +288,11 @@ Operation parse_operation(const std::string& text, LatticeKind lattice, const st
 
 bool canonical_less(const Operation& a, const Operation& b) {
   if (a.primed != b.primed) return !a.primed;
-  OperationKind ka = a.kind(), kb = b.kind();
+  return canonical_less(a.primed, a.kind(), b.primed, b.kind());
+}
+
+bool canonical_less(bool a_primed, const OperationKind& ka, bool b_primed, const OperationKind& kb) {
+  if (a_primed != b_primed) return !a_primed;
   if (ka.proper != kb.proper) return ka.proper;
   if (ka.order != kb.order) return ka.order < kb.order;
   for (int i = 0; i < 3; ++i)

@@ -63,5 +63,8 @@ Mat3 rotation_matrix(int n, int sense, const Vec3& axis_cartesian, bool improper
 // A stable ordering of operations for canonical output: 1 first, then proper
 // rotations by order, then improper ones, unprimed before primed.
 bool canonical_less(const Operation& a, const Operation& b);
+// The same order from kinds computed beforehand: kind() costs exact matrix
+// arithmetic, so a sort computes it once per operation, not once per comparison.
+bool canonical_less(bool a_primed, const OperationKind& ka, bool b_primed, const OperationKind& kb);
 
 } // namespace ts

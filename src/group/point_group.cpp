@@ -1,15 +1,33 @@
 #include "group/point_group.hpp"
 
 #include <algorithm>
-#include <bitset>
 #include <cmath>
 #include <set>
 
 namespace ts {
 
 namespace {
+// Sorts by keys computed once per operation: kind() is exact matrix arithmetic,
+// and calling it inside every comparison made sorting the largest start-up cost.
+template <typename Less>
+void stable_sort_by_kind(std::vector<Operation>& ops, Less less) {
+  std::vector<OperationKind> kinds;
+  kinds.reserve(ops.size());
+  for (const auto& op : ops) kinds.push_back(op.kind());
+  std::vector<std::size_t> order(ops.size());
+  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
+    return less(ops[a], kinds[a], ops[b], kinds[b]);
+  });
+  std::vector<Operation> sorted;
+  sorted.reserve(ops.size());
+  for (std::size_t i : order) sorted.push_back(std::move(ops[i]));
+  ops = std::move(sorted);
+}
+
 void sort_canonical(std::vector<Operation>& ops) {
-  std::stable_sort(ops.begin(), ops.end(), canonical_less);
+  stable_sort_by_kind(ops, [](const Operation& a, const OperationKind& ka, const Operation& b,
+                              const OperationKind& kb) { return canonical_less(a.primed, ka, b.primed, kb); });
 }
 
 // A point operation of a crystal maps its lattice onto itself: its matrix in
@@ -27,6 +45,17 @@ bool preserves_lattice(const Mat3& R, LatticeKind lattice) {
       if (!W(i, j).is_rational() || !W(i, j).rational_part().is_integer()) return false;
   return true;
 }
+// The closure of operations taken from a known group: no checks and no sorting,
+// since only its size and membership are asked for.
+std::vector<Operation> closure_within_group(const std::vector<Operation>& gens) {
+  std::vector<Operation> ops{Operation::identity()};
+  for (std::size_t i = 0; i < ops.size(); ++i)
+    for (const auto& gen : gens) {
+      Operation p = ops[i] * gen;
+      if (std::find(ops.begin(), ops.end(), p) == ops.end()) ops.push_back(p);
+    }
+  return ops;
+}
 } // namespace
 
 PointGroup PointGroup::from_closed_set(std::vector<Operation> ops, LatticeKind lattice) {
@@ -34,6 +63,22 @@ PointGroup PointGroup::from_closed_set(std::vector<Operation> ops, LatticeKind l
   sort_canonical(ops);
   g.ops_ = std::move(ops);
   g.lattice_ = lattice;
+  return g;
+}
+
+PointGroup PointGroup::from_canonical(std::vector<Operation> ops, LatticeKind lattice,
+                                      std::vector<Operation> generators) {
+  PointGroup g;
+  g.ops_ = std::move(ops);
+  g.lattice_ = lattice;
+  g.generators_cache_ = std::move(generators);
+  return g;
+}
+
+PointGroup PointGroup::sorted_subset(std::vector<Operation> ops) const {
+  PointGroup g;
+  g.ops_ = std::move(ops);
+  g.lattice_ = lattice_;
   return g;
 }
 
@@ -101,7 +146,7 @@ PointGroup PointGroup::unitary_part() const {
   std::vector<Operation> u;
   for (const auto& o : ops_)
     if (!o.primed) u.push_back(o);
-  return from_closed_set(std::move(u), lattice_);
+  return sorted_subset(std::move(u));
 }
 
 PointGroup PointGroup::underlying_group() const {
@@ -126,8 +171,8 @@ std::vector<Operation> PointGroup::generators() const {
   // Greedy: add the first operation (in canonical order, highest order first)
   // not yet generated, until the closure is the whole group.
   std::vector<Operation> by_order = ops_;
-  std::stable_sort(by_order.begin(), by_order.end(), [](const Operation& a, const Operation& b) {
-    OperationKind ka = a.kind(), kb = b.kind();
+  stable_sort_by_kind(by_order, [](const Operation& a, const OperationKind& ka, const Operation& b,
+                                   const OperationKind& kb) {
     if (a.primed != b.primed) return !a.primed;
     return ka.order > kb.order;
   });
@@ -136,7 +181,7 @@ std::vector<Operation> PointGroup::generators() const {
   for (const auto& cand : by_order) {
     if (std::find(span.begin(), span.end(), cand) != span.end()) continue;
     gens.push_back(cand);
-    span = generate(gens, lattice_, 96).ops_;
+    span = closure_within_group(gens);
     if (span.size() == ops_.size()) break;
   }
   generators_cache_ = gens;
@@ -182,48 +227,64 @@ std::vector<int> multiplication_table(const PointGroup& g) {
 std::vector<PointGroup> PointGroup::subgroups() const {
   const std::size_t n = ops_.size();
   std::vector<int> table = multiplication_table(*this);
-  using Set = std::bitset<128>;
-  auto close = [&](Set s) {
-    std::vector<int> members;
-    for (std::size_t i = 0; i < n; ++i)
-      if (s[i]) members.push_back(static_cast<int>(i));
+  // A subset of the operations as a bit mask (at most 96 operations); as a number,
+  // its order is that of the mask read from the last operation to the first.
+  __extension__ typedef unsigned __int128 Set;
+  auto bit = [](int i) { return Set(1) << i; };
+  auto count = [](Set s) {
+    return __builtin_popcountll(static_cast<std::uint64_t>(s)) + __builtin_popcountll(static_cast<std::uint64_t>(s >> 64));
+  };
+  // The subgroup generated by a few operations: the identity (ops_[0] in canonical
+  // order) multiplied on the right by the generators until nothing new appears,
+  // so each closure costs (its order) x (number of generators) table look-ups.
+  auto closure = [&](const std::vector<int>& gens) {
+    Set s = bit(0);
+    std::vector<int> members{0};
     for (std::size_t a = 0; a < members.size(); ++a)
-      for (std::size_t b = 0; b < members.size(); ++b) {
-        int p = table[members[a] * n + members[b]];
-        if (!s[p]) {
-          s[p] = true;
+      for (int g : gens) {
+        int p = table[members[a] * n + g];
+        if (!((s >> p) & 1)) {
+          s |= bit(p);
           members.push_back(p);
         }
       }
     return s;
   };
-  std::vector<Set> cyclic;
-  for (std::size_t i = 0; i < n; ++i) {
-    Set s;
-    s[0] = true; // identity is ops_[0] in canonical order
-    s[i] = true;
-    cyclic.push_back(close(s));
-  }
-  std::set<std::string> seen;
-  std::vector<Set> all;
-  auto add = [&](const Set& s) {
-    std::string k = s.to_string();
-    if (seen.insert(k).second) all.push_back(s);
+  struct Found {
+    Set members;
+    std::vector<int> gens;
   };
-  for (const auto& c : cyclic) add(c);
+  std::vector<Found> all;
+  std::set<Set> seen, joined;
+  std::vector<std::pair<Set, int>> cyclic; // each cyclic subgroup once, with a generator
+  for (std::size_t i = 0; i < n; ++i) {
+    Set c = closure({static_cast<int>(i)});
+    if (seen.insert(c).second) {
+      cyclic.emplace_back(c, static_cast<int>(i));
+      all.push_back({c, {static_cast<int>(i)}});
+    }
+  }
+  // Every subgroup is generated by cyclic subgroups: join them one at a time.
   for (std::size_t i = 0; i < all.size(); ++i)
-    for (const auto& c : cyclic)
-      if ((all[i] | c) != all[i]) add(close(all[i] | c));
-  std::sort(all.begin(), all.end(), [](const Set& a, const Set& b) {
-    if (a.count() != b.count()) return a.count() > b.count();
-    return a.to_string() > b.to_string();
+    for (const auto& [c, g] : cyclic) {
+      Set u = all[i].members | c;
+      if (u == all[i].members || !joined.insert(u).second) continue;
+      std::vector<int> gens = all[i].gens;
+      gens.push_back(g);
+      Set s = closure(gens);
+      if (seen.insert(s).second) all.push_back({s, std::move(gens)});
+    }
+  std::sort(all.begin(), all.end(), [&](const Found& a, const Found& b) {
+    int ca = count(a.members), cb = count(b.members);
+    if (ca != cb) return ca > cb;
+    return a.members > b.members;
   });
   std::vector<PointGroup> result;
-  for (const auto& s : all) {
+  for (const auto& f : all) {
     std::vector<Operation> ops;
     for (std::size_t i = 0; i < n; ++i)
-      if (s[i]) ops.push_back(ops_[i]);
-    result.push_back(from_closed_set(std::move(ops), lattice_));
+      if ((f.members >> i) & 1) ops.push_back(ops_[i]);
+    result.push_back(sorted_subset(std::move(ops)));
   }
   return result;
 }
@@ -255,7 +316,7 @@ PointGroup PointGroup::intersection(const PointGroup& other) const {
   std::vector<Operation> ops;
   for (const auto& o : ops_)
     if (other.contains(o)) ops.push_back(o);
-  return from_closed_set(std::move(ops), lattice_);
+  return sorted_subset(std::move(ops));
 }
 
 } // namespace ts

@@ -22,6 +22,10 @@ public:
                              std::size_t max_order = 96, const std::string& where = {});
   // Wrap a set already known to be a group (sorted into canonical order).
   static PointGroup from_closed_set(std::vector<Operation> ops, LatticeKind lattice);
+  // Wrap operations already in canonical order with their generating set, as the
+  // built group table stores them (tests check the table against a derivation).
+  static PointGroup from_canonical(std::vector<Operation> ops, LatticeKind lattice,
+                                   std::vector<Operation> generators);
 
   const std::vector<Operation>& operations() const { return ops_; }
   std::size_t order() const { return ops_.size(); }
@@ -51,6 +55,8 @@ public:
   friend bool operator!=(const PointGroup& a, const PointGroup& b) { return !(a == b); }
 
 private:
+  // Operations taken from ops_ in their order: already canonical, so not sorted again.
+  PointGroup sorted_subset(std::vector<Operation> ops) const;
   std::vector<Operation> ops_;
   LatticeKind lattice_ = LatticeKind::orthogonal;
   // Filled on first use, so a PointGroup shared between threads must have had

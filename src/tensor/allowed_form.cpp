@@ -525,7 +525,7 @@ Frame through(const StandardRoute& route, const Frame& frame) {
 }
 
 AllowedForm solve_in_frame(const TensorSpec& spec, const PointGroup& group, const Frame& frame) {
-  auto sym = std::make_shared<const IndexSymmetry>(spec);
+  auto sym = index_symmetry_of(spec);
   if (frame.is_identity())
     return build_form(spec, sym, invariant_rows(spec, *sym, group), {Rational(1), Rational(1), Rational(1)});
   std::vector<Row> rows = rotate_rows(*sym, invariant_rows(spec, *sym, group), frame);
@@ -546,9 +546,9 @@ AllowedForm allowed_form(const TensorSpec& spec, const PointGroup& group, const 
 
 int independent_count(const TensorSpec& spec, const PointGroup& group) {
   if (auto route = standard_route(group)) return independent_count(spec, route->standard);
-  IndexSymmetry sym(spec);
-  std::vector<Row> rows = invariant_rows(spec, sym, group);
-  return static_cast<int>(rref_blocks(rows, sym.size()).size());
+  auto sym = index_symmetry_of(spec);
+  std::vector<Row> rows = invariant_rows(spec, *sym, group);
+  return static_cast<int>(rref_blocks(rows, sym->size()).size());
 }
 
 std::string AllowedForm::parameter_name(int j) const {

@@ -3,6 +3,7 @@
 #include "core/error.hpp"
 
 #include <map>
+#include <mutex>
 
 namespace ts {
 
@@ -106,6 +107,27 @@ IndexSymmetry::IndexSymmetry(const TensorSpec& spec) : rank_(spec.rank) {
   }
   for (auto& s : sign_)
     if (s == 2) s = 0;
+}
+
+std::shared_ptr<const IndexSymmetry> index_symmetry_of(const TensorSpec& spec) {
+  // Everything IndexSymmetry reads from the spec, as one key.
+  std::vector<int> key{spec.rank};
+  for (const auto& g : spec.symmetries) {
+    key.push_back(g.sign);
+    key.insert(key.end(), g.perm.begin(), g.perm.end());
+  }
+  key.push_back(-2); // separates the symmetries from the Onsager exchange
+  key.insert(key.end(), spec.onsager.begin(), spec.onsager.end());
+  static std::mutex lock;
+  static std::map<std::vector<int>, std::shared_ptr<const IndexSymmetry>> cache;
+  {
+    std::lock_guard<std::mutex> hold(lock);
+    if (auto it = cache.find(key); it != cache.end()) return it->second;
+  }
+  auto sym = std::make_shared<const IndexSymmetry>(spec); // may throw for a contradictory spec: nothing cached
+  std::lock_guard<std::mutex> hold(lock);
+  if (cache.size() >= 512) cache.clear(); // a long session with many specs keeps memory bounded
+  return cache.emplace(std::move(key), std::move(sym)).first->second;
 }
 
 } // namespace ts

@@ -8,6 +8,7 @@
 #include "tensor/tensor_spec.hpp"
 
 #include <cstdint>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -40,6 +41,11 @@ private:
   std::vector<int> reps_, reduced_, sign_;
   std::vector<std::vector<int>> members_;
 };
+
+// The index symmetry of a spec, built once per distinct symmetry (rank, index
+// permutations, Onsager exchange) and shared: a survey or a catalogue asks for the
+// same spec in every group. Safe to call from several threads.
+std::shared_ptr<const IndexSymmetry> index_symmetry_of(const TensorSpec& spec);
 
 // "xyz" for a code.
 std::string index_string(int code, int rank);
