@@ -185,3 +185,19 @@ TEST_CASE("the domain average is written as a form, one relation a line when lon
   for (std::size_t nl = w.out.find('\n', at); nl < end; nl = w.out.find('\n', nl + 1))
     CHECK(w.out.find('\n', nl + 1) - nl < 200); // no relation line runs on
 }
+
+TEST_CASE("a layout without a cut designs bars in the sample xy plane, and says when nothing is allowed", "[reports]") {
+  // Without a cut the sample is the crystal in its own axes: the candidates are the
+  // low-index directions perpendicular to z = [001] (common practice: a bar is patterned in the plane).
+  const auto r = run_cli({"sample", "4mm", "--layout", "magnetoconductivity-quadratic", "-f", "json"});
+  REQUIRE(r.exit_code == 0);
+  CHECK(r.out.find("[00-1]") == std::string::npos);
+  CHECK(r.out.find("\"[210]\"") != std::string::npos);
+  // A non-magnetic 4mm crystal has no anomalous Hall effect (a time-odd axial vector, common practice).
+  const auto none = run_cli({"sample", "4mm", "--layout", "anomalous-hall"});
+  REQUIRE(none.exit_code == 0);
+  CHECK(none.out.find("anomalous-hall at 1ω: no part is allowed in 4mm1' at this harmonic") != std::string::npos);
+  const auto bad = run_cli({"sample", "4mm", "--bar", "[001]", "--response", "anomalous-hall"});
+  CHECK(bad.exit_code == 7);
+  CHECK(bad.err.find("(normal sample z = [001])") != std::string::npos);
+}

@@ -50,6 +50,9 @@ SampleFrame build_sample_frame(const FrameRequest& rq, const std::string& system
     if (!rq.x.empty())
       fail(ErrorKind::bad_geometry, "sample x given without a cut or z", rq.where, "cut = \"(001)\" or z = \"[001]\"");
     sf.frame.labels = {"[100]", lattice == LatticeKind::hexagonal ? "[120]" : "[010]", "[001]"};
+    // No cut: the sample is the crystal in its own axes, and a bar lies in its xy plane.
+    sf.normal = {QSqrt3(0), QSqrt3(0), QSqrt3(1)};
+    sf.normal_label = "sample z = [001]";
     return sf;
   }
   if (!rq.cut.empty() && !rq.z.empty())

@@ -20,7 +20,7 @@ struct FrameRequest {
 struct SampleFrame {
   Frame frame;
   bool has_normal = false;  // a cut or z was given
-  Vec3 normal{};            // exact, unnormalised (frame.axes[2])
+  Vec3 normal{};            // exact, unnormalised (frame.axes[2]); [001] without a cut or z
   std::string normal_label; // "normal of (001) = [001]", "[111]"
 };
 

@@ -249,6 +249,9 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
   std::ostringstream os;
   os << heading("bar layout", f, 2);
   for (const auto& l : r.layouts) {
+    if (l.designs.empty())
+      os << bullet(f) << prose(l.spec.response, f) << " at " << harmonic_name(l.spec.harmonic) << ": no part is allowed in "
+         << prose(r.chain.back().readable_symbol, f) << " at this harmonic, so there are no bars to design" << line(f) << "\n";
     for (std::size_t i = 0; i < l.designs.size(); ++i) {
       const LayoutDesign& d = l.designs[i];
       const PartForms& pf = r.parts[l.parts[i]];
