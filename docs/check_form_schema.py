@@ -18,6 +18,7 @@ Exit status 0 when every check passes.
 """
 
 import json
+import math
 import os
 import re
 import subprocess
@@ -47,6 +48,7 @@ CASES = [
     ["-42m", "chi_ijkl: sym(jkl)", "--z", "[111]", "--x", "[-110]", "--a", "3.9", "--c", "4.1"],
     # measured lattice parameters: coefficients beyond 64 bits
     ["4mm", "[V4]", "--z", "[101]", "--x", "[010]", "--a", "3.9051", "--c", "4.1023"],
+    ["mmm", "V2", "--z", "[111]", "--a", "5.4321", "--b", "5.5012", "--c", "7.6543"],  # radicands beyond 64 bits
 ]
 
 
@@ -188,12 +190,18 @@ def semantic_checks(doc):
         for term in c["terms"]:
             if term["parameter"] not in params:
                 raise Invalid(f"{c['component']}: unknown parameter {term['parameter']}")
-            radicands = [s["sqrt_of"] for s in term["coefficient_terms"]]
+            radicands = [int(s["sqrt_of"]) for s in term["coefficient_terms"]]
             if radicands != sorted(set(radicands)):
                 raise Invalid(f"{c['component']}: surd terms not sorted or repeated")
+            for r in radicands:
+                # within 64 bits square-free; beyond, only distinct square classes are promised
+                if r < 2**63 and not square_free(r):
+                    raise Invalid(f"{c['component']}: sqrt_of {r} is not square-free")
+            for i, r in enumerate(radicands):
+                for q in radicands[:i]:
+                    if math.isqrt(r * q) ** 2 == r * q:
+                        raise Invalid(f"{c['component']}: sqrt_of {q} and {r} are in one square class")
             for s in term["coefficient_terms"]:
-                if not square_free(s["sqrt_of"]):
-                    raise Invalid(f"{c['component']}: sqrt_of {s['sqrt_of']} is not square-free")
                 if gcd(int(s["numerator"]), int(s["denominator"])) != 1:
                     raise Invalid(f"{c['component']}: {s['numerator']}/{s['denominator']} not in lowest terms")
         by_name[c["component"]] = c

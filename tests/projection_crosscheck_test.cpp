@@ -214,7 +214,7 @@ QSqrt3 to_qsqrt3(const Surd& s) {
   for (const auto& [radicand, coef] : s.terms()) {
     if (radicand == 1) q += QSqrt3(coef);
     else if (radicand == 3) q += QSqrt3(Rational(0), coef);
-    else FAIL("coefficient with sqrt(" << radicand << ") in a group's own frame, outside Q(sqrt 3)");
+    else FAIL("coefficient with sqrt(" << radicand.str() << ") in a group's own frame, outside Q(sqrt 3)");
   }
   return q;
 }

@@ -98,7 +98,7 @@ def square_class_zero(terms):
 def check(binary, group, placement, lengths, tensor, rank, symmetric):
     """placement: a cut "(hkl)", or a bulk frame ("[uvw] for z", "[uvw] for x")."""
     bulk = isinstance(placement, tuple)
-    where = ["--z", placement[0], "--x", placement[1]] if bulk else ["--cut", placement]
+    where = (["--z", placement[0]] + (["--x", placement[1]] if placement[1] else [])) if bulk else ["--cut", placement]
     args = ["sample", group] + where + ["--tensor", tensor]
     for name, value in lengths.items():
         args += [f"--{name}", value]
@@ -108,7 +108,13 @@ def check(binary, group, placement, lengths, tensor, rank, symmetric):
     # the frame axes as unnormalised Cartesian vectors u a + v b + w c (orthogonal axes)
     frame = final["frame"]
     axes = [[Fraction(u) * a, Fraction(v) * b, Fraction(w) * c]
-            for u, v, w in (lattice_vector(frame[k]) for k in ("x", "y", "z"))]
+            for u, v, w in (lattice_vector(frame[k]) for k in ("x", "y"))]
+    if bulk or "=" in frame["z"]:
+        u, v, w = lattice_vector(frame["z"])
+        axes.append([Fraction(u) * a, Fraction(v) * b, Fraction(w) * c])
+    else:  # a normal without 64-bit [uvw] indices is labelled by its plane: h a* + k b* + l c*
+        h, k, l = (int(t) for t in re.findall(r"-?\d", placement))
+        axes.append([Fraction(h) / a, Fraction(k) / b, Fraction(l) / c])
     dot = lambda p, q: sum(s * t for s, t in zip(p, q))
     for i, j in ((0, 1), (0, 2), (1, 2)):
         assert dot(axes[i], axes[j]) == 0, (args, "frame axes not orthogonal")
@@ -193,12 +199,21 @@ def main():
         check(binary, "mmm", "(101)", orthorhombic, tensor, rank, symmetric)
         check(binary, "mmm", "(011)", orthorhombic, tensor, rank, symmetric)
     check(binary, "mmm", "(111)", {"a": "5.43", "b": "5.51", "c": "7.65"}, "V3", 3, False)
+    # three nonzero indices with 4-5 digit parameters: square roots of numbers beyond
+    # 64 bits in the frame's normalisation
+    for tensor, rank, symmetric in (("V", 1, False), ("V3", 3, False), ("[V4]", 4, True)):
+        check(binary, "mmm", "(111)", orthorhombic, tensor, rank, symmetric)
+    check(binary, "mmm", "(111)", {"a": "3.905", "b": "3.912", "c": "4.101"}, "V2", 2, False)
     # bulk crystals in oblique frames: relations between components with coefficients
     # of 20 digits and more (strings in the JSON)
     for placement in (("[101]", "[010]"), ("[111]", "[1-10]")):
         for tensor, rank, symmetric in (("V3", 3, False), ("[V4]", 4, True), ("V4", 4, False)):
             check(binary, "4mm", placement, tetragonal, tensor, rank, symmetric)
     check(binary, "mmm", ("[101]", "[010]"), orthorhombic, "[V4]", 4, True)
+    # all three axes oblique (x chosen by the tool, [-b^2, a^2, 0] in lowest terms): the
+    # square roots of |y|^2 = |z|^2 |x|^2 go beyond 64 bits
+    for tensor, rank, symmetric in (("V2", 2, False), ("V3", 3, False), ("[V4]", 4, True)):
+        check(binary, "mmm", ("[111]", None), orthorhombic, tensor, rank, symmetric)
     print("all sample-frame forms agree with the rotated crystal-frame forms")
 
 

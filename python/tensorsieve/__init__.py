@@ -45,7 +45,7 @@ def exact_components(report):
         terms = {}
         for t in c["terms"]:
             terms[t["parameter"]] = tuple(
-                (Fraction(int(k["numerator"]), int(k["denominator"])), k["sqrt_of"]) for k in t["coefficient_terms"])
+                (Fraction(int(k["numerator"]), int(k["denominator"])), int(k["sqrt_of"])) for k in t["coefficient_terms"])
         out[c["component"]] = terms
     return out
 

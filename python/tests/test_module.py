@@ -239,3 +239,19 @@ def test_local_field_bad_index_names_the_field():
     with pytest.raises(ts.Error, match="n_2omega"):
         ts.scenario({"responses": ["electric-dipole-shg"], "crystal": {"group": "m-3m"},
                      "shg": [{"incidence": 45, "n_omega": "2.2", "n_2omega": "2.2+-1i"}]})
+
+
+def test_exact_components_with_square_roots_beyond_64_bits():
+    # An orthorhombic crystal seen along [111] with 5-digit lattice parameters: the
+    # normalisation of y = z x x brings square roots of integers beyond 64 bits, written as
+    # strings in the JSON; exact_components reads them back as Python integers (the values
+    # themselves are checked against sympy in tests/sample_frame_sympy_check.py).
+    report = ts.scenario({"title": "oblique mmm", "tensors": ["V2"],
+                          "crystal": {"group": "mmm", "lattice": {"a": 5.4321, "b": 5.5012, "c": 7.6543}},
+                          "sample": {"z": "[111]"}})
+    final = report["parts"][0]["final"]
+    big = [k["sqrt_of"] for c in final["components"] for t in c["terms"] for k in t["coefficient_terms"]
+           if isinstance(k["sqrt_of"], str)]
+    assert big, "expected a radicand beyond 64 bits"
+    exact = ts.exact_components(final)
+    assert all(isinstance(r, int) for terms in exact.values() for coefs in terms.values() for _, r in coefs)

@@ -8,29 +8,16 @@
 #include <algorithm>
 #include <cmath>
 #include <numeric>
-#include <optional>
 
 namespace ts {
 
 namespace {
 
-// Radicands are square-free parts of squared axis lengths and their products, so they
-// stay far below the numbers of the elimination; they are kept in 64 bits, and one that
-// does not fit is refused (never approximated).
-const char* radicand_valid =
-    "fewer significant digits in the lattice parameters (a cut with three nonzero Miller indices of an "
-    "orthorhombic crystal works with 3, e.g. 5.43), or smaller Miller indices";
-
-[[noreturn]] void refuse_radicand(const std::string& what) {
-  fail(ErrorKind::too_large, "a square root in the sample frame's normalisation, " + what + ", outgrows 64 bits", "",
-       radicand_valid);
-}
-
 constexpr std::int64_t kTrialBound = std::int64_t(1) << 21;
 
 // Square-free split of an integer n > 0 beyond 64 bits, by the same trial division as
 // the 64-bit one; once the cofactor fits in 64 bits that one finishes the job.
-std::optional<std::pair<Rational, Rational>> square_free_split_big(cln::cl_I n) {
+std::pair<Rational, Rational> square_free_split_big(cln::cl_I n) {
   cln::cl_I g = 1, s = 1;
   auto strip = [&](std::uint64_t q) {
     cln::cl_I big_q = cln::cl_I(static_cast<unsigned long long>(q));
@@ -55,18 +42,19 @@ std::optional<std::pair<Rational, Rational>> square_free_split_big(cln::cl_I n) 
     return std::make_pair(Rational::from_cln(g * g2), Rational::from_cln(s * s2));
   }
   // A cofactor beyond 64 bits without prime factors below 2^21: a square, or a number
-  // whose square-free part is itself beyond 64 bits unless it hides the square of a
-  // prime above 2^21, which trial division cannot tell; the caller refuses it.
+  // that may hide the square of a prime above 2^21, which trial division cannot tell.
+  // It is kept whole in the radicand; Surd::add_term keeps such radicands in distinct
+  // square classes, which is all the zero test needs.
   cln::cl_I root;
-  if (!cln::sqrtp(n, &root)) return std::nullopt;
-  return std::make_pair(Rational::from_cln(g * root), Rational::from_cln(s));
+  if (cln::sqrtp(n, &root)) return std::make_pair(Rational::from_cln(g * root), Rational::from_cln(s));
+  return std::make_pair(Rational::from_cln(g), Rational::from_cln(s * n));
 }
 
-// The same for an integer of any size; nothing when that cannot be decided.
-std::optional<std::pair<Rational, Rational>> square_free_split_any(const Rational& n) {
+// The same for an integer of any size.
+std::pair<Rational, Rational> square_free_split_any(const Rational& n) {
   if (!n.is_small()) return square_free_split_big(cln::numerator(n.to_cln()));
   auto [g, s] = square_free_split(n.num());
-  return std::make_pair(Rational(g), Rational(s));
+  return {Rational(g), Rational(s)};
 }
 
 } // namespace
@@ -99,10 +87,32 @@ std::pair<std::int64_t, std::int64_t> square_free_split(std::int64_t n) {
   return {g, s * n};
 }
 
-void Surd::add_term(std::int64_t radicand, const Rational& coef) {
+void Surd::add_term(const Rational& radicand, const Rational& coef) {
   if (coef.is_zero()) return;
+  if (!radicand.is_small()) {
+    // A radicand beyond 64 bits: fold it into a radicand of its square class when the
+    // Surd has one (r·r_i a perfect square: √r = √(r·r_i)/r_i·√r_i), or into the
+    // rational part when it is a square itself.
+    const cln::cl_I r = cln::numerator(radicand.to_cln());
+    cln::cl_I root;
+    if (cln::sqrtp(r, &root)) return add_term(Rational(1), coef * Rational::from_cln(root));
+    for (const auto& term : terms_) {
+      const Rational ri = term.first; // a copy: add_term may erase the term
+      if (ri == Rational(1) || ri == radicand) continue;
+      if (cln::sqrtp(r * cln::numerator(ri.to_cln()), &root))
+        return add_term(ri, coef * Rational::from_cln(root) / ri);
+    }
+  } else {
+    for (const auto& term : terms_) {
+      const Rational ri = term.first; // a copy: add_term may erase the term
+      if (ri.is_small()) continue;
+      cln::cl_I root;
+      if (cln::sqrtp(cln::numerator(radicand.to_cln()) * cln::numerator(ri.to_cln()), &root))
+        return add_term(ri, coef * Rational::from_cln(root) / ri);
+    }
+  }
   auto it = std::lower_bound(terms_.begin(), terms_.end(), radicand,
-                             [](const auto& t, std::int64_t r) { return t.first < r; });
+                             [](const auto& t, const Rational& r) { return t.first < r; });
   if (it != terms_.end() && it->first == radicand) {
     it->second += coef;
     if (it->second.is_zero()) terms_.erase(it);
@@ -111,19 +121,25 @@ void Surd::add_term(std::int64_t radicand, const Rational& coef) {
   }
 }
 
+bool operator==(const Surd& a, const Surd& b) {
+  if (a.terms_ == b.terms_) return true;
+  // Radicands within 64 bits are canonical (square-free); beyond, one square class may
+  // be written with two radicands, so compare the values.
+  auto big = [](const Surd& s) {
+    return std::any_of(s.terms_.begin(), s.terms_.end(), [](const auto& t) { return !t.first.is_small(); });
+  };
+  return (big(a) || big(b)) && (a - b).is_zero();
+}
+
 Surd Surd::sqrt_of(const Rational& q) {
   if (q.sign() < 0) fail(ErrorKind::internal, "square root of a negative number");
   Surd s;
   if (q.is_zero()) return s;
   // √(n/d) = (g1/g2)·√(f1/f2) = g1/(g2·f2)·√(f1·f2), with n = g1²·f1 and d = g2²·f2;
   // f1 and f2 are square-free and coprime, so f1·f2 is square-free.
-  auto top = square_free_split_any(q.numerator()), bottom = square_free_split_any(q.denominator());
-  if (!top || !bottom) refuse_radicand("sqrt(" + q.str() + ")");
-  auto [g1, f1] = *top;
-  auto [g2, f2] = *bottom;
-  Rational radicand = f1 * f2;
-  if (!radicand.is_small()) refuse_radicand("sqrt(" + q.str() + ")");
-  s.add_term(radicand.num(), g1 / (g2 * f2));
+  auto [g1, f1] = square_free_split_any(q.numerator());
+  auto [g2, f2] = square_free_split_any(q.denominator());
+  s.add_term(f1 * f2, g1 / (g2 * f2));
   return s;
 }
 
@@ -145,18 +161,30 @@ Surd operator*(const Surd& a, const Surd& b) {
     for (const auto& [rb, cb] : b.terms_) {
       // √ra·√rb = g·√((ra/g)(rb/g)) with g = gcd(ra, rb): for square-free ra and rb the
       // two quotients are coprime and square-free, so their product is the new radicand.
-      std::int64_t g = std::gcd(ra, rb);
-      Wide f = static_cast<Wide>(ra / g) * (rb / g);
-      if (f > static_cast<Wide>(INT64_MAX))
-        refuse_radicand("sqrt(" + std::to_string(ra) + ")*sqrt(" + std::to_string(rb) + ")");
-      r.add_term(static_cast<std::int64_t>(f), ca * cb * Rational(g));
+      if (ra.is_small() && rb.is_small()) {
+        const std::int64_t x = ra.num(), y = rb.num(), g = std::gcd(x, y);
+        r.add_term(Rational(x / g) * Rational(y / g), ca * cb * Rational(g));
+        continue;
+      }
+      // A radicand beyond 64 bits may not be square-free: the product is split again
+      // when it fits in 64 bits (so small radicands stay square-free), else kept whole
+      // and sorted into its square class by add_term.
+      const cln::cl_I x = cln::numerator(ra.to_cln()), y = cln::numerator(rb.to_cln()), g = cln::gcd(x, y);
+      const Rational f = Rational::from_cln(cln::exquo(x, g) * cln::exquo(y, g));
+      Rational coef = ca * cb * Rational::from_cln(g);
+      if (f.is_small()) {
+        auto [root, rest] = square_free_split(f.num());
+        r.add_term(Rational(rest), coef * Rational(root));
+      } else {
+        r.add_term(f, coef);
+      }
     }
   return r;
 }
 
 double Surd::to_double() const {
   double v = 0;
-  for (const auto& [rad, c] : terms_) v += c.to_double() * std::sqrt(static_cast<double>(rad));
+  for (const auto& [rad, c] : terms_) v += c.to_double() * std::sqrt(rad.to_double());
   return v;
 }
 
@@ -168,14 +196,14 @@ int Surd::sign() const {
     const auto& [a, r1] = terms_[0];
     const auto& [b, r2] = terms_[1];
     if (r1.sign() == r2.sign()) return r1.sign();
-    Rational x = r1 * r1 * Rational(a), y = r2 * r2 * Rational(b);
+    Rational x = r1 * r1 * a, y = r2 * r2 * b;
     if (x == y) return 0; // impossible for distinct square-free radicands, kept for safety
     return x > y ? r1.sign() : r2.sign();
   }
   // More terms only arise in long sums; their magnitude is never near zero in
   // practice, but decide with a generous floating margin and refuse otherwise.
   double v = to_double(), scale = 0;
-  for (const auto& [rad, c] : terms_) scale += std::fabs(c.to_double()) * std::sqrt(static_cast<double>(rad));
+  for (const auto& [rad, c] : terms_) scale += std::fabs(c.to_double()) * std::sqrt(rad.to_double());
   if (std::fabs(v) > 1e-9 * scale) return v > 0 ? 1 : -1;
   fail(ErrorKind::internal, "cannot decide the sign of a nested radical sum");
 }

@@ -63,7 +63,10 @@ SampleFrame build_sample_frame(const FrameRequest& rq, const std::string& system
     CutNormal cn = parse_cut(rq.cut, system, lattice, m, rq.where + (rq.where.empty() ? "cut" : ": cut"));
     z = cn.normal;
     std::string dir = lattice_direction_label(z, lattice, m);
-    sf.normal_label = cn.plane ? "normal of " + cn.text + (dir.front() == '[' ? " = " + dir : "") : cn.text;
+    // " = [uvw]" only when the normal has integer indices that fit in 64 bits; otherwise
+    // the label would be the Cartesian vector (written with '/' and spaces), not a [uvw].
+    const bool uvw = dir.front() == '[' && dir.find_first_of(" /") == std::string::npos;
+    sf.normal_label = cn.plane ? "normal of " + cn.text + (uvw ? " = " + dir : "") : cn.text;
   } else {
     z = direction_vector(rq.z, system, lattice, m, rq.where + (rq.where.empty() ? "z" : ": z"));
     sf.normal_label = parse_direction(rq.z, rq.where).text;

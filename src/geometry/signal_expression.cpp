@@ -37,7 +37,7 @@ GiNaC::ex surd_ex(const Surd& s) {
   for (const auto& [radicand, r] : s.terms()) {
     GiNaC::ex c = GiNaC::numeric(cln::cl_N(r.to_cln()));
     // sqrt of an ex, not of a numeric: GiNaC's numeric overload of sqrt returns a float.
-    e += radicand == 1 ? c : c * GiNaC::sqrt(GiNaC::ex(GiNaC::numeric(radicand)));
+    e += radicand == Rational(1) ? c : c * GiNaC::sqrt(GiNaC::ex(GiNaC::numeric(cln::cl_N(radicand.to_cln()))));
   }
   return e;
 }

@@ -66,11 +66,21 @@ bool cartesian_to_lattice_direction(const Vec3& v, LatticeKind lattice, std::arr
     for (int i = 0; i < 3; ++i) r[i] = l[i].sqrt3_part();
   else
     return false;
-  long long den = 1;
-  for (const auto& x : r) den = std::lcm(den, static_cast<long long>(x.den()));
+  // Integer indices that do not fit in 64 bits have no [uvw] label (the caller writes
+  // the vector instead); checked here, since a wrapped product would name a wrong direction.
+  for (const auto& x : r)
+    if (!x.is_small()) return false;
+  constexpr Wide limit = INT64_MAX;
+  Wide den = 1;
+  for (const auto& x : r) {
+    den = den / std::gcd(static_cast<long long>(den), static_cast<long long>(x.den())) * x.den();
+    if (den > limit) return false;
+  }
   long long n[3], g = 0;
   for (int i = 0; i < 3; ++i) {
-    n[i] = r[i].num() * (den / r[i].den());
+    const Wide ni = static_cast<Wide>(r[i].num()) * (den / r[i].den());
+    if (ni > limit || ni < -limit) return false;
+    n[i] = static_cast<long long>(ni);
     g = gcd_ll(g, n[i]);
   }
   if (g == 0) return false;

@@ -15,13 +15,14 @@ std::string rational_latex(const Rational& r, const std::string& times) {
 }
 
 // One term r·√s without its sign.
-std::string term_text(const Rational& mag, std::int64_t rad, TextStyle style) {
+std::string term_text(const Rational& mag, const Rational& rad, TextStyle style) {
+  const bool rational = rad == Rational(1);
   if (style == TextStyle::latex) {
-    std::string root = rad == 1 ? "" : "\\sqrt{" + std::to_string(rad) + "}";
+    std::string root = rational ? "" : "\\sqrt{" + rad.str() + "}";
     return rational_latex(mag, root);
   }
-  std::string root = "sqrt(" + std::to_string(rad) + ")";
-  if (rad == 1) return mag.str();
+  std::string root = "sqrt(" + rad.str() + ")";
+  if (rational) return mag.str();
   std::string s = mag.numerator() == Rational(1) ? root : mag.numerator().str() + "*" + root;
   if (!mag.is_integer()) s += "/" + mag.denominator().str();
   return s;

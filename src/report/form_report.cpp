@@ -18,12 +18,13 @@ int code3(int a, int b, int c) { return (a * 3 + b) * 3 + c; }
 // One term c·√rad of an exact coefficient. JSON readers keep integers exactly only up
 // to 53 or 64 bits, so (common practice) a numerator or denominator beyond 64 bits
 // is written as a string of decimal digits.
-toml::table surd_term_json(const Rational& c, std::int64_t rad) {
-  toml::table t{{"sqrt_of", rad}};
+toml::table surd_term_json(const Rational& c, const Rational& rad) {
+  toml::table t;
   auto put = [&](const char* key, const Rational& v) {
     if (v.is_small()) t.insert_or_assign(key, v.num());
     else t.insert_or_assign(key, v.str());
   };
+  put("sqrt_of", rad);
   put("numerator", c.numerator());
   put("denominator", c.denominator());
   return t;
