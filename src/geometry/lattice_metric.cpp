@@ -100,13 +100,17 @@ void require_metric(const std::array<long, 3>& v, const std::string& system, con
 
 } // namespace
 
-std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
+std::optional<std::string> lattice_direction_indices(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
   Rational a = m.a.value_or(Rational(1)), b = m.b.value_or(a), c = m.c.value_or(a);
   Vec3 w = lattice == LatticeKind::hexagonal ? Vec3{v[0] / QSqrt3(a), v[1] / QSqrt3(a), v[2] / QSqrt3(c)}
                                              : Vec3{v[0] / QSqrt3(a), v[1] / QSqrt3(b), v[2] / QSqrt3(c)};
   std::array<long, 3> uvw{};
   if (cartesian_to_lattice_direction(w, lattice, &uvw)) return direction_str(uvw);
-  return vec_str(v);
+  return std::nullopt;
+}
+
+std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& m) {
+  return lattice_direction_indices(v, lattice, m).value_or(vec_str(v));
 }
 
 Vec3 metric_direction(const LatticeDirection& d, const std::string& system, LatticeKind lattice,

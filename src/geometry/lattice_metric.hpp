@@ -39,6 +39,8 @@ Vec3 metric_direction(const LatticeDirection& d, const std::string& system, Latt
 // The lattice direction [uvw] of an exact Cartesian vector, the metric applied
 // (the inverse of metric_direction); the Cartesian components when there is none.
 std::string lattice_direction_label(const Vec3& v, LatticeKind lattice, const LatticeMetric& metric);
+// The [uvw] of v when it has integer indices that fit in 64 bits; nothing otherwise.
+std::optional<std::string> lattice_direction_indices(const Vec3& v, LatticeKind lattice, const LatticeMetric& metric);
 
 // A lattice parameter written as a decimal number ("3.905", "4.1e0", "41e-1"), read
 // exactly. Refused, with the error kind given and `where`, when it is not a plain

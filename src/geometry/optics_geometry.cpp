@@ -19,28 +19,29 @@ OpticalMonomial operator*(const OpticalMonomial& a, const OpticalMonomial& b) {
 
 ThetaTrig::ThetaTrig(const TrigPoly& p) { add({}, p); }
 
-ThetaTrig ThetaTrig::cos_theta() {
+// The one-term polynomial 1·m: cos θ, sin θ or one local-field factor.
+ThetaTrig ThetaTrig::of(const OpticalMonomial& m) {
   ThetaTrig t;
-  OpticalMonomial m;
-  m.cos_theta = 1;
   t.add(m, TrigPoly::constant(Rational(1)));
   return t;
+}
+
+ThetaTrig ThetaTrig::cos_theta() {
+  OpticalMonomial m;
+  m.cos_theta = 1;
+  return of(m);
 }
 
 ThetaTrig ThetaTrig::sin_theta() {
-  ThetaTrig t;
   OpticalMonomial m;
   m.sin_theta = 1;
-  t.add(m, TrigPoly::constant(Rational(1)));
-  return t;
+  return of(m);
 }
 
 ThetaTrig ThetaTrig::local_field(int symbol) {
-  ThetaTrig t;
   OpticalMonomial m;
   m.field[symbol] = 1;
-  t.add(m, TrigPoly::constant(Rational(1)));
-  return t;
+  return of(m);
 }
 
 void ThetaTrig::add(OpticalMonomial key, const TrigPoly& p) {

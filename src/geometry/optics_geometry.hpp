@@ -62,6 +62,7 @@ class ThetaTrig {
 public:
   ThetaTrig() = default;
   ThetaTrig(const TrigPoly& p); // NOLINT: a polynomial without θ
+  static ThetaTrig of(const OpticalMonomial& m); // the one-term polynomial 1·m
   static ThetaTrig cos_theta();
   static ThetaTrig sin_theta();
   static ThetaTrig local_field(int symbol); // one factor L (local_field.hpp)

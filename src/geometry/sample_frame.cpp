@@ -62,11 +62,9 @@ SampleFrame build_sample_frame(const FrameRequest& rq, const std::string& system
   if (!rq.cut.empty()) {
     CutNormal cn = parse_cut(rq.cut, system, lattice, m, rq.where + (rq.where.empty() ? "cut" : ": cut"));
     z = cn.normal;
-    std::string dir = lattice_direction_label(z, lattice, m);
-    // " = [uvw]" only when the normal has integer indices that fit in 64 bits; otherwise
-    // the label would be the Cartesian vector (written with '/' and spaces), not a [uvw].
-    const bool uvw = dir.front() == '[' && dir.find_first_of(" /") == std::string::npos;
-    sf.normal_label = cn.plane ? "normal of " + cn.text + (uvw ? " = " + dir : "") : cn.text;
+    // " = [uvw]" only when the normal has integer indices that fit in 64 bits.
+    const std::optional<std::string> uvw = lattice_direction_indices(z, lattice, m);
+    sf.normal_label = cn.plane ? "normal of " + cn.text + (uvw ? " = " + *uvw : "") : cn.text;
   } else {
     z = direction_vector(rq.z, system, lattice, m, rq.where + (rq.where.empty() ? "z" : ": z"));
     sf.normal_label = parse_direction(rq.z, rq.where).text;
