@@ -1,5 +1,5 @@
 // The neighbour grid behind the coincident-atom checks: it must never miss a pair
-// that the direct all-pairs search finds, in any cell shape.
+// that the direct all-pairs search finds, in any cell shape (the reference: that search, common practice).
 #include "lowering/site_grid.hpp"
 
 #include <catch2/catch.hpp>
