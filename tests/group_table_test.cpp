@@ -7,14 +7,13 @@
 #include "group/group_catalogue.hpp"
 #include "group/group_table.hpp"
 #include "support/cli_run.hpp"
+#include "support/data_copy.hpp"
 
 #include <catch2/catch.hpp>
 
-#include <fstream>
 
 using namespace ts;
 using namespace ts::test;
-namespace fs = std::filesystem;
 
 namespace {
 
@@ -82,25 +81,6 @@ void check_same_catalogue(const GroupCatalogue& read, const GroupCatalogue& deri
   CHECK(read.types().size() == 122);
 }
 
-// A copy of the data directory (group files and response catalogue) that a test may edit.
-struct DataCopy {
-  TempDir dir;
-  DataCopy() {
-    fs::copy(fs::path(source_dir) / "groups", dir / "groups", fs::copy_options::recursive);
-    fs::create_directories(dir / "responses");
-    for (const char* f : {"catalogue.toml", "families.toml"})
-      fs::copy_file(fs::path(source_dir) / "src/response" / f, dir / ("responses/" + std::string(f)));
-  }
-  void replace(const std::string& file, const std::string& from, const std::string& to) {
-    fs::path p = dir / ("groups/" + file);
-    std::string text = read_file(p);
-    std::size_t at = text.find(from);
-    REQUIRE(at != std::string::npos);
-    text.replace(at, from.size(), to);
-    std::ofstream(p, std::ios::binary | std::ios::trunc) << text;
-  }
-};
-
 } // namespace
 
 TEST_CASE("the built group table is the derivation of the group files", "[group_table]") {
@@ -132,7 +112,7 @@ TEST_CASE("an unchanged copy of the group files elsewhere uses the table and nam
 TEST_CASE("edited group files are derived, not read from the table", "[group_table]") {
   DataCopy copy;
   const std::string edited = "setting = \"4 along z, edited copy\"";
-  copy.replace("tetragonal.toml", "setting = \"4 ∥ z (polar axis z); mirrors ⊥ x, y and ⊥ [110], [1-10]\"", edited);
+  copy.replace("groups/tetragonal.toml", "setting = \"4 ∥ z (polar axis z); mirrors ⊥ x, y and ⊥ [110], [1-10]\"", edited);
   const std::string dir = copy.dir.path().string();
   CHECK(group_data_fingerprint(dir) != group_data_fingerprint(source_dir));
   const auto cat = GroupCatalogue::load_with_table(dir);
@@ -151,7 +131,7 @@ TEST_CASE("edited group files are derived, not read from the table", "[group_tab
 
 TEST_CASE("a broken group file in a copy is reported from the derivation", "[group_table]") {
   DataCopy copy;
-  copy.replace("tetragonal.toml", "order = 8", "order = 9");
+  copy.replace("groups/tetragonal.toml", "order = 8", "order = 9");
   CliResult r = run_cli({"group", "4mm"}, {{"TENSORSIEVE_DATA", copy.dir.path().string()}});
   CHECK(r.exit_code != 0);
   CHECK(r.out.empty());

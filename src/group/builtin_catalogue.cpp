@@ -19,7 +19,9 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::load_with_table(const std::strin
 }
 
 const GroupCatalogue& GroupCatalogue::builtin() {
-  static std::unique_ptr<GroupCatalogue> cat;
+  // Never destroyed: it lives as long as the process, and tearing it down at exit
+  // is work for nothing.
+  static const GroupCatalogue* cat;
   static std::once_flag once;
   std::call_once(once, [] {
     std::unique_ptr<GroupCatalogue> loaded = load_with_table(data_directory());
@@ -29,7 +31,7 @@ const GroupCatalogue& GroupCatalogue::builtin() {
     // (The table brings them filled.)
     for (const auto& c : loaded->classes_) c.group.generators();
     for (const auto& g : loaded->groups_) g.group.generators();
-    cat = std::move(loaded);
+    cat = loaded.release();
   });
   return *cat;
 }

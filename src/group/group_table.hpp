@@ -1,6 +1,6 @@
 // The group catalogue derived once at build time. Deriving the 122 magnetic types
 // from groups/*.toml (closures, subgroups, identification) is most of the start-up
-// of every command; the build runs the same derivation (tools/write_group_table.cpp)
+// of every command; the build runs the same derivation (tools/write_builtin_table.cpp)
 // and compiles its result, a text table, into the library. The TOML files stay
 // the source of truth: the table carries a fingerprint of the files it was made
 // from and is used only for a data directory whose files match it.
@@ -12,7 +12,7 @@
 
 namespace ts {
 
-// FNV-1a over the names and bytes of dir/groups/*.toml (sorted by name); 0 when
+// A hash (files_fingerprint) of the names and bytes of dir/groups/*.toml (sorted by name); 0 when
 // there are none or one cannot be read.
 std::uint64_t group_data_fingerprint(const std::string& data_dir);
 

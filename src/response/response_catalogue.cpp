@@ -9,7 +9,6 @@
 #include <cctype>
 #include <filesystem>
 #include <map>
-#include <mutex>
 #include <set>
 
 namespace ts {
@@ -302,13 +301,6 @@ std::vector<std::string> ResponseCatalogue::expand(const std::string& id_family_
     return out;
   }
   return {get(id_family_or_alias).id};
-}
-
-const ResponseCatalogue& ResponseCatalogue::builtin() {
-  static std::unique_ptr<ResponseCatalogue> cat;
-  static std::once_flag once;
-  std::call_once(once, [] { cat = load(response_catalogue_path()); });
-  return *cat;
 }
 
 const Response* ResponseCatalogue::find(const std::string& id_or_alias) const {

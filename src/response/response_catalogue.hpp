@@ -10,10 +10,12 @@
 #include "tensor/allowed_form.hpp"
 #include "tensor/tensor_spec.hpp"
 
+#include <cstdint>
 #include <memory>
 #include <optional>
 #include <map>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace ts {
@@ -52,6 +54,13 @@ public:
   static std::unique_ptr<ResponseCatalogue> load(const std::string& path);
   // The catalogue at response_catalogue_path() (src/core/data_dir.hpp), loaded once.
   static const ResponseCatalogue& builtin();
+  // The catalogue at `path`: from the table built into the library when the files
+  // match it (response_table.hpp), else loaded from them.
+  static std::unique_ptr<ResponseCatalogue> load_with_table(const std::string& path);
+  // The catalogue as a build-time table, and back; `path` is where the catalogue
+  // file is, so positions in messages name it.
+  std::string table_text(std::uint64_t fingerprint) const;
+  static std::unique_ptr<ResponseCatalogue> from_table(std::string_view table, const std::string& path);
 
   const std::vector<Response>& responses() const { return responses_; }
   const std::string& path() const { return path_; }
