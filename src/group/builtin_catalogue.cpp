@@ -28,9 +28,9 @@ const GroupCatalogue& GroupCatalogue::builtin() {
     // PointGroup fills its generator cache on first use; the catalogue's groups
     // are shared by every thread (screening runs in a pool), so fill the caches
     // here, before the catalogue is published, and they are only read after.
-    // (The table brings them filled.)
-    for (const auto& c : loaded->classes_) c.group.generators();
-    for (const auto& g : loaded->groups_) g.group.generators();
+    // (Groups from the table decode themselves under a once flag.)
+    for (const auto& c : loaded->classes_) c.group.fill_caches();
+    for (const auto& g : loaded->groups_) g.group.fill_caches();
     cat = loaded.release();
   });
   return *cat;

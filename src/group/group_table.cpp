@@ -64,12 +64,28 @@ std::vector<Operation> read_operations(RecordReader& r, const char* tag, const s
   return ops;
 }
 
-PointGroup read_group(RecordReader& r, const std::vector<Mat3>& matrices) {
+std::vector<std::uint16_t> read_codes(RecordReader& r, const char* tag, std::size_t matrices) {
+  const auto fields = r.record(tag);
+  std::vector<std::uint16_t> codes;
+  codes.reserve(fields.size());
+  for (auto f : fields) {
+    long long c = r.number(f);
+    if (c < 0 || static_cast<std::size_t>(c / 2) >= matrices)
+      fail(ErrorKind::internal, "group table: operation code out of range");
+    codes.push_back(static_cast<std::uint16_t>(c));
+  }
+  return codes;
+}
+
+// Kept packed (point_group.hpp): most groups of the catalogue are never looked at.
+PointGroup read_group(RecordReader& r, const std::shared_ptr<const std::vector<Mat3>>& matrices) {
   auto l = r.record("lattice", 1);
   LatticeKind lattice = l[0] == "hexagonal" ? LatticeKind::hexagonal : LatticeKind::orthogonal;
-  std::vector<Operation> ops = read_operations(r, "operations", matrices);
-  std::vector<Operation> gens = read_operations(r, "generators", matrices);
-  return PointGroup::from_canonical(std::move(ops), lattice, std::move(gens));
+  PackedOperations packed;
+  packed.matrices = matrices;
+  packed.operations = read_codes(r, "operations", matrices->size());
+  packed.generators = read_codes(r, "generators", matrices->size());
+  return PointGroup::from_packed(std::move(packed), lattice);
 }
 
 
@@ -156,6 +172,7 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::from_table(std::string_view text
                                  Rational(r.number(f[4 * k + 2]), r.number(f[4 * k + 3])));
     matrices.push_back(m);
   }
+  const auto shared = std::make_shared<const std::vector<Mat3>>(matrices);
   const fs::path groups_dir = fs::path(data_dir) / "groups";
   while (r.next_is("class")) {
     auto f = r.record("class", 13);
@@ -179,7 +196,7 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::from_table(std::string_view text
     if (sym.size() % 2 != 0) fail(ErrorKind::internal, "group table: malformed 'symbol' record");
     for (std::size_t i = 0; i < sym.size(); i += 2)
       c.symbol.push_back({unescaped(sym[i]), operation_of(r, sym[i + 1], matrices)});
-    c.group = read_group(r, matrices);
+    c.group = read_group(r, shared);
     cat->classes_.push_back(std::move(c));
   }
   auto crystal = [&](std::string_view f) {
@@ -206,7 +223,7 @@ std::unique_ptr<GroupCatalogue> GroupCatalogue::from_table(std::string_view text
     g.crystal = crystal(f[6]);
     g.is_type_standard = f[7] == "1";
     g.type_index = static_cast<int>(r.number(f[8]));
-    g.group = read_group(r, matrices);
+    g.group = read_group(r, shared);
     cat->groups_.push_back(std::move(g));
   }
   while (r.next_is("key")) {

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <mutex>
 #include <set>
 
 namespace ts {
@@ -75,6 +76,50 @@ PointGroup PointGroup::from_canonical(std::vector<Operation> ops, LatticeKind la
   return g;
 }
 
+struct PointGroup::Packed {
+  PackedOperations codes;
+  std::once_flag once;
+  std::vector<Operation> ops, generators;
+
+  void decode() {
+    const std::vector<Mat3>& m = *codes.matrices;
+    auto decoded = [&](const std::vector<std::uint16_t>& list) {
+      std::vector<Operation> out;
+      out.reserve(list.size());
+      for (std::uint16_t c : list) out.push_back({m[c / 2], c % 2 == 1});
+      return out;
+    };
+    ops = decoded(codes.operations);
+    generators = decoded(codes.generators);
+  }
+};
+
+const std::vector<Operation>& PointGroup::ops() const {
+  if (!packed_) return ops_;
+  std::call_once(packed_->once, [p = packed_.get()] { p->decode(); });
+  return packed_->ops;
+}
+
+std::size_t PointGroup::order() const { return packed_ ? packed_->codes.operations.size() : ops_.size(); }
+
+PointGroup PointGroup::from_packed(PackedOperations packed, LatticeKind lattice) {
+  if (!packed.matrices || packed.operations.empty())
+    fail(ErrorKind::internal, "a packed group needs its matrices and at least the identity");
+  for (const auto* list : {&packed.operations, &packed.generators})
+    for (std::uint16_t c : *list)
+      if (c / 2 >= packed.matrices->size()) fail(ErrorKind::internal, "a packed operation code is out of range");
+  PointGroup g;
+  g.ops_.clear();
+  g.lattice_ = lattice;
+  g.packed_ = std::make_shared<Packed>();
+  g.packed_->codes = std::move(packed);
+  return g;
+}
+
+void PointGroup::fill_caches() const {
+  if (!packed_) generators();
+}
+
 PointGroup PointGroup::sorted_subset(std::vector<Operation> ops) const {
   PointGroup g;
   g.ops_ = std::move(ops);
@@ -132,26 +177,27 @@ void require_lattice_group(const PointGroup& g, const std::string& where) {
 bool PointGroup::contains(const Operation& g) const { return index_of(g) >= 0; }
 
 int PointGroup::index_of(const Operation& g) const {
-  for (std::size_t i = 0; i < ops_.size(); ++i)
-    if (ops_[i] == g) return static_cast<int>(i);
+  const std::vector<Operation>& all = ops();
+  for (std::size_t i = 0; i < all.size(); ++i)
+    if (all[i] == g) return static_cast<int>(i);
   return -1;
 }
 
 bool PointGroup::is_magnetic() const {
-  return std::any_of(ops_.begin(), ops_.end(), [](const Operation& o) { return o.primed; });
+  return std::any_of(ops().begin(), ops().end(), [](const Operation& o) { return o.primed; });
 }
 bool PointGroup::is_grey() const { return contains(Operation::time_reversal()); }
 
 PointGroup PointGroup::unitary_part() const {
   std::vector<Operation> u;
-  for (const auto& o : ops_)
+  for (const auto& o : ops())
     if (!o.primed) u.push_back(o);
   return sorted_subset(std::move(u));
 }
 
 PointGroup PointGroup::underlying_group() const {
   std::vector<Operation> u;
-  for (auto o : ops_) {
+  for (auto o : ops()) {
     o.primed = false;
     if (std::find(u.begin(), u.end(), o) == u.end()) u.push_back(o);
   }
@@ -160,17 +206,21 @@ PointGroup PointGroup::underlying_group() const {
 
 PointGroup PointGroup::with_time_reversal() const {
   if (is_grey()) return *this;
-  std::vector<Operation> u = underlying_group().ops_;
+  std::vector<Operation> u = underlying_group().ops();
   std::size_t n = u.size();
   for (std::size_t i = 0; i < n; ++i) u.push_back({u[i].R, true});
   return from_closed_set(std::move(u), lattice_);
 }
 
 std::vector<Operation> PointGroup::generators() const {
-  if (!generators_cache_.empty() || ops_.size() == 1) return generators_cache_;
+  if (packed_) {
+    ops();
+    return packed_->generators;
+  }
+  if (!generators_cache_.empty() || ops().size() == 1) return generators_cache_;
   // Greedy: add the first operation (in canonical order, highest order first)
   // not yet generated, until the closure is the whole group.
-  std::vector<Operation> by_order = ops_;
+  std::vector<Operation> by_order = ops();
   stable_sort_by_kind(by_order, [](const Operation& a, const OperationKind& ka, const Operation& b,
                                    const OperationKind& kb) {
     if (a.primed != b.primed) return !a.primed;
@@ -182,7 +232,7 @@ std::vector<Operation> PointGroup::generators() const {
     if (std::find(span.begin(), span.end(), cand) != span.end()) continue;
     gens.push_back(cand);
     span = closure_within_group(gens);
-    if (span.size() == ops_.size()) break;
+    if (span.size() == ops().size()) break;
   }
   generators_cache_ = gens;
   return gens;
@@ -225,7 +275,7 @@ std::vector<int> multiplication_table(const PointGroup& g) {
 }
 
 std::vector<PointGroup> PointGroup::subgroups() const {
-  const std::size_t n = ops_.size();
+  const std::size_t n = ops().size();
   std::vector<int> table = multiplication_table(*this);
   // A subset of the operations as a bit mask (at most 96 operations); as a number,
   // its order is that of the mask read from the last operation to the first.
@@ -280,43 +330,45 @@ std::vector<PointGroup> PointGroup::subgroups() const {
     return a.members > b.members;
   });
   std::vector<PointGroup> result;
+  const std::vector<Operation>& mine = ops();
   for (const auto& f : all) {
-    std::vector<Operation> ops;
+    std::vector<Operation> subset;
     for (std::size_t i = 0; i < n; ++i)
-      if ((f.members >> i) & 1) ops.push_back(ops_[i]);
-    result.push_back(sorted_subset(std::move(ops)));
+      if ((f.members >> i) & 1) subset.push_back(mine[i]);
+    result.push_back(sorted_subset(std::move(subset)));
   }
   return result;
 }
 
 bool PointGroup::is_subgroup_of(const PointGroup& other) const {
-  return std::all_of(ops_.begin(), ops_.end(), [&](const Operation& o) { return other.contains(o); });
+  return std::all_of(ops().begin(), ops().end(), [&](const Operation& o) { return other.contains(o); });
 }
 
 std::vector<Operation> PointGroup::coset_representatives(const PointGroup& H) const {
   if (!H.is_subgroup_of(*this)) fail(ErrorKind::internal, "coset of a group that is not a subgroup");
   std::vector<Operation> reps;
-  std::vector<bool> covered(ops_.size(), false);
-  for (std::size_t i = 0; i < ops_.size(); ++i) {
+  const std::vector<Operation>& mine = ops();
+  std::vector<bool> covered(mine.size(), false);
+  for (std::size_t i = 0; i < mine.size(); ++i) {
     if (covered[i]) continue;
-    reps.push_back(ops_[i]);
-    for (const auto& h : H.ops_) covered[index_of(ops_[i] * h)] = true;
+    reps.push_back(mine[i]);
+    for (const auto& h : H.ops()) covered[index_of(mine[i] * h)] = true;
   }
   return reps;
 }
 
 PointGroup PointGroup::conjugated(const Mat3& Q) const {
   Mat3 Qi = Q.transpose();
-  std::vector<Operation> ops;
-  for (const auto& o : ops_) ops.push_back({Q * o.R * Qi, o.primed});
-  return from_closed_set(std::move(ops), lattice_);
+  std::vector<Operation> turned;
+  for (const auto& o : ops()) turned.push_back({Q * o.R * Qi, o.primed});
+  return from_closed_set(std::move(turned), lattice_);
 }
 
 PointGroup PointGroup::intersection(const PointGroup& other) const {
-  std::vector<Operation> ops;
-  for (const auto& o : ops_)
-    if (other.contains(o)) ops.push_back(o);
-  return sorted_subset(std::move(ops));
+  std::vector<Operation> common;
+  for (const auto& o : ops())
+    if (other.contains(o)) common.push_back(o);
+  return sorted_subset(std::move(common));
 }
 
 } // namespace ts

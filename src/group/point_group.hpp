@@ -7,9 +7,18 @@
 #include "group/operation.hpp"
 
 #include <cstdint>
+#include <memory>
 #include <vector>
 
 namespace ts {
+
+// A group's operations as codes into a list of matrices that many groups share
+// (the built group table): code = 2·index + 1 when primed. Both lists are in the
+// order the group keeps them (canonical operations; the generating set).
+struct PackedOperations {
+  std::shared_ptr<const std::vector<Mat3>> matrices;
+  std::vector<std::uint16_t> operations, generators;
+};
 
 class PointGroup {
 public:
@@ -26,9 +35,13 @@ public:
   // built group table stores them (tests check the table against a derivation).
   static PointGroup from_canonical(std::vector<Operation> ops, LatticeKind lattice,
                                    std::vector<Operation> generators);
+  // The same, kept packed until the operations are first asked for: the catalogue
+  // holds some 400 groups and a command looks at few of them, so decoding them all
+  // (about a megabyte of exact matrices) would be most of its start-up.
+  static PointGroup from_packed(PackedOperations packed, LatticeKind lattice);
 
-  const std::vector<Operation>& operations() const { return ops_; }
-  std::size_t order() const { return ops_.size(); }
+  const std::vector<Operation>& operations() const { return ops(); }
+  std::size_t order() const; // without decoding a packed group
   LatticeKind lattice() const { return lattice_; }
   bool contains(const Operation& g) const;
   int index_of(const Operation& g) const; // -1 when absent
@@ -51,16 +64,23 @@ public:
   // Operations g with g·H·g^-1 = H... intersection with another group in the same frame.
   PointGroup intersection(const PointGroup& other) const;
 
-  friend bool operator==(const PointGroup& a, const PointGroup& b) { return a.ops_ == b.ops_; }
+  // Makes the group safe to share between threads: fills what is otherwise filled
+  // on first use. (A packed group decodes itself under a once flag.)
+  void fill_caches() const;
+
+  friend bool operator==(const PointGroup& a, const PointGroup& b) { return a.ops() == b.ops(); }
   friend bool operator!=(const PointGroup& a, const PointGroup& b) { return !(a == b); }
 
 private:
   // Operations taken from ops_ in their order: already canonical, so not sorted again.
   PointGroup sorted_subset(std::vector<Operation> ops) const;
+  const std::vector<Operation>& ops() const; // ops_, or the decoded packed operations
+  struct Packed;
   std::vector<Operation> ops_;
+  std::shared_ptr<Packed> packed_; // shared by copies; decoded at most once
   LatticeKind lattice_ = LatticeKind::orthogonal;
   // Filled on first use, so a PointGroup shared between threads must have had
-  // generators() called once before it is shared (the catalogue does this).
+  // fill_caches() called before it is shared (the catalogue does this).
   mutable std::vector<Operation> generators_cache_;
 };
 
