@@ -32,6 +32,13 @@ struct ComplexSurd {
   bool is_zero() const { return re.is_zero() && im.is_zero(); }
   friend ComplexSurd operator+(const ComplexSurd& a, const ComplexSurd& b) { return {a.re + b.re, a.im + b.im}; }
   friend ComplexSurd operator*(const ComplexSurd& a, const ComplexSurd& b) {
+    // Most coefficients are real or imaginary (cos and sin of the angles): skip the
+    // products that are exactly zero.
+    const bool a_real = a.im.is_zero(), b_real = b.im.is_zero();
+    if (a_real && b_real) return {a.re * b.re, Surd()};
+    if (a_real) return {a.re * b.re, a.re * b.im};
+    if (b_real) return {a.re * b.re, a.im * b.re};
+    if (a.re.is_zero() && b.re.is_zero()) return {-(a.im * b.im), Surd()};
     return {a.re * b.re - a.im * b.im, a.re * b.im + a.im * b.re};
   }
   friend bool operator==(const ComplexSurd& a, const ComplexSurd& b) { return a.re == b.re && a.im == b.im; }

@@ -4,6 +4,9 @@
 #include "geometry/component_contraction.hpp"
 
 #include <algorithm>
+#include <map>
+#include <mutex>
+#include <utility>
 
 namespace ts {
 
@@ -11,7 +14,9 @@ const char* probe_name(Probe p) { return p == Probe::longitudinal ? "longitudina
 
 bool is_bar_part(const ResponsePart& part) { return part.drive != DriveKind::none; }
 
-std::vector<HarmonicFactor> lock_in_factors(int n, Waveform w) {
+namespace {
+
+std::vector<HarmonicFactor> expand_lock_in_factors(int n, Waveform w) {
   // I(t)^n = (√2 I_rms)^n s(ωt)^n with s = sin or cos, expanded exactly.
   TrigPoly s = w == Waveform::sine ? TrigPoly::sin_of(Angle::drive) : TrigPoly::cos_of(Angle::drive);
   TrigPoly p = TrigPoly::constant(Rational(1));
@@ -46,6 +51,19 @@ std::vector<HarmonicFactor> lock_in_factors(int n, Waveform w) {
   }
   std::sort(out.begin(), out.end(), [](const HarmonicFactor& x, const HarmonicFactor& y) { return x.harmonic < y.harmonic; });
   return out;
+}
+
+} // namespace
+
+std::vector<HarmonicFactor> lock_in_factors(int n, Waveform w) {
+  // The same few expansions are asked for by every bar part of a run, and by every
+  // thread of a screening: expand each once.
+  static std::mutex mutex;
+  static std::map<std::pair<int, Waveform>, std::vector<HarmonicFactor>> expanded;
+  const std::lock_guard<std::mutex> lock(mutex);
+  auto it = expanded.find({n, w});
+  if (it == expanded.end()) it = expanded.emplace(std::make_pair(n, w), expand_lock_in_factors(n, w)).first;
+  return it->second;
 }
 
 namespace {

@@ -108,8 +108,7 @@ PointGroup PointGroup::from_packed(PackedOperations packed, LatticeKind lattice)
   for (const auto* list : {&packed.operations, &packed.generators})
     for (std::uint16_t c : *list)
       if (c / 2 >= packed.matrices->size()) fail(ErrorKind::internal, "a packed operation code is out of range");
-  PointGroup g;
-  g.ops_.clear();
+  PointGroup g{Unfilled{}};
   g.lattice_ = lattice;
   g.packed_ = std::make_shared<Packed>();
   g.packed_->codes = std::move(packed);

@@ -72,6 +72,8 @@ public:
   friend bool operator!=(const PointGroup& a, const PointGroup& b) { return !(a == b); }
 
 private:
+  struct Unfilled {};
+  explicit PointGroup(Unfilled) {} // no operations yet: for from_packed, which fills packed_
   // Operations taken from ops_ in their order: already canonical, so not sorted again.
   PointGroup sorted_subset(std::vector<Operation> ops) const;
   const std::vector<Operation>& ops() const; // ops_, or the decoded packed operations

@@ -144,6 +144,7 @@ std::unique_ptr<ResponseCatalogue> ResponseCatalogue::from_table(std::string_vie
     const long long parts = r.number(f[10]);
     x.aliases = r.list("aliases");
     x.drives = r.list("drives");
+    x.parts.reserve(static_cast<std::size_t>(parts));
     for (long long k = 0; k < parts; ++k) {
       auto g = r.record("part", 9);
       ResponsePart p;
