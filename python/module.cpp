@@ -12,6 +12,7 @@
 #include "report/form_report.hpp"
 #include "report/group_report.hpp"
 #include "report/json_text.hpp"
+#include "report/observation_report.hpp"
 #include "report/scenario_report.hpp"
 #include "report/screen_report.hpp"
 #include "report/response_report.hpp"
@@ -155,6 +156,8 @@ py::object scenario(const py::object& source) {
   } else {
     sc = load_scenario(py::str(source).cast<std::string>());
   }
+  // As `run`: a scenario with observations is answered after its report.
+  if (!sc.observations.empty()) return parse_json(write_scenario_with_observations(run_observations(sc), Format::json));
   return parse_json(write_scenario(run_scenario(sc), Format::json));
 }
 

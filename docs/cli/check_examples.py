@@ -43,6 +43,10 @@ def process(binary, path, update):
     out, failures, checked = [], 0, 0
     i = 0
     with tempfile.TemporaryDirectory(prefix="ts-doc-") as scratch:
+        # Commands run in a scratch directory, with the repository's examples/ beside
+        # them, so a page can run `tensorsieve run examples/NAME.toml` as a reader would.
+        repo = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
+        os.symlink(os.path.join(repo, "examples"), os.path.join(scratch, "examples"))
         rc = 0
         while i < len(lines):
             line = lines[i]

@@ -132,6 +132,15 @@ def test_scenario_from_file_and_from_dict(tmp_path):
     assert "unknown key 'cutt' in [sample]" in str(caught.value)
 
 
+def test_scenario_with_observations_answers_them_as_run_does():
+    path = os.path.join(os.environ["TENSORSIEVE_SOURCE_DIR"], "examples", "hall-signal-to-explain.toml")
+    report = ts.scenario(path)
+    assert report == cli_json("run", path)
+    first = report["observations"][0]
+    assert first["allowed_in_parent"] is False
+    assert [s["type"] for s in first["maximal_subgroups"]] == ["m1'", "m1'", "m1'"]
+
+
 def test_bar_signals_from_a_scenario_dict():
     # A (111) interface of a cubic crystal (3m1'): the zero-field 2w signal of a turning bar is
     # L = chi_xxy sin 3phi, T = chi_xxy cos 3phi with no dipole (Sodemann & Fu, PRL 115, 216806 (2015)).

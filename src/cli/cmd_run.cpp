@@ -19,7 +19,7 @@ void setup_run(CLI::App& app) {
     std::string file, fractions;
   };
   auto o = std::make_shared<Opts>();
-  auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses");
+  auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses, observations");
   cmd->add_option("scenario", o->file, "scenario TOML file (docs/scenarios.md)")->required();
   add_fractions_option(*cmd, o->fractions);
   add_figure_options(*cmd, o->figures);
@@ -29,7 +29,13 @@ void setup_run(CLI::App& app) {
     Scenario sc = load_scenario(o->file);
     apply_fractions_option(o->fractions, sc);
     apply_figure_options(o->figures, sc);
-    emit_scenario(o->out, run_scenario(sc));
+    if (sc.observations.empty()) {
+      emit_scenario(o->out, run_scenario(sc));
+      return;
+    }
+    // The observations are answered against the group the chain ends in, as `observe` does.
+    const ObservationRun run = run_observations(sc);
+    emit_scenario(o->out, run.scenario, &run);
   });
 }
 

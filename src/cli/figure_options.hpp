@@ -7,6 +7,7 @@
 #include "core/error.hpp"
 #include "figure/figure_draw.hpp"
 #include "report/html_report.hpp"
+#include "report/observation_report.hpp"
 #include "report/scenario_report.hpp"
 
 #include <CLI/CLI.hpp>
@@ -68,14 +69,17 @@ inline void apply_figure_options(const FigureOptions& o, Scenario& sc) {
 
 // Report in the requested format, then the figure files; every figure is
 // drawn before anything is written, so a bad value leaves no file behind.
-inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r) {
+// With `observations` (whose scenario is `r`), the report also answers them.
+inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, const ObservationRun* observations = nullptr) {
   const FigureSpec& spec = r.scenario.figures;
   std::vector<FigureFormat> formats;
   for (const auto& name : spec.formats) formats.push_back(parse_figure_format(name, spec.where));
   if (formats.empty()) formats = {FigureFormat::svg, FigureFormat::pdf};
   std::vector<FigureData> figures;
   if (!spec.directory.empty()) figures = scenario_figures(r, figure_settings(spec));
-  emit(out, out.format == "html" ? write_scenario_html(r) : write_scenario(r, parse_format(out.format)));
+  if (out.format == "html") emit(out, write_scenario_html(r, observations));
+  else if (observations) emit(out, write_scenario_with_observations(*observations, parse_format(out.format)));
+  else emit(out, write_scenario(r, parse_format(out.format)));
   if (spec.directory.empty()) return;
   std::vector<std::string> written = write_figures(figures, spec.directory, formats);
   std::cerr << "tensorsieve: wrote " << figures.size() << " figure(s), " << written.size() << " files, into "

@@ -1,4 +1,5 @@
 #include "report/html_report.hpp"
+#include "report/observation_report.hpp"
 
 #include "figure/figure_data.hpp"
 #include "figure/figure_draw.hpp"
@@ -176,7 +177,23 @@ void figures_section(const ScenarioResult& r, std::ostream& os) {
 
 } // namespace
 
-std::string write_scenario_html(const ScenarioResult& r) {
+void observations_section(const ObservationRun& run, std::ostream& os) {
+  os << "<h2>Observations: what the signals prove</h2>\n";
+  for (const AnswerText& a : answers_text(run)) {
+    os << "<h3>" << esc(a.heading) << "</h3>\n<p>" << esc(a.seen) << "<br>" << esc(a.verdict) << "</p>\n";
+    if (a.solutions.empty()) continue;
+    os << "<table><tr>";
+    for (const auto& c : answer_columns()) os << "<th>" << esc(c) << "</th>";
+    os << "<th>produced by</th></tr>\n";
+    for (const auto& s : a.solutions)
+      os << "<tr><td>" << esc(s.number) << "</td><td><b>" << esc(s.group) << "</b></td><td>" << esc(s.order)
+         << "</td><td>" << esc(s.index) << "</td><td>" << esc(s.variants) << "</td><td>" << esc(s.shown_by)
+         << "</td><td>" << esc(s.equal_domains) << "</td><td>" << esc(s.produced_by) << "</td></tr>\n";
+    os << "</table>\n<p class=\"dim\">" << esc(a.domains_note) << "</p>\n";
+  }
+}
+
+std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations) {
   const Scenario& sc = r.scenario;
   const std::string title = sc.title.empty() ? "tensorsieve scenario" : sc.title;
   std::ostringstream os;
@@ -190,6 +207,7 @@ std::string write_scenario_html(const ScenarioResult& r) {
   forms_section(r, os);
   bars_section(r, os);
   optics_section(r, os);
+  if (observations) observations_section(*observations, os);
   figures_section(r, os);
   os << "<footer>\n<p class=\"warn\">Safety</p>\n<p>Optical experiments of this kind use class 3B and class 4 lasers, "
         "often pulsed and invisible: wear eye protection rated for the wavelengths and powers in use, keep beams "

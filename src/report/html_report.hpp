@@ -5,12 +5,15 @@
 // offline in any browser. The footer carries the safety notes.
 #pragma once
 
+#include "scenario/observation_run.hpp"
 #include "scenario/scenario_run.hpp"
 
 #include <string>
 
 namespace ts {
 
-std::string write_scenario_html(const ScenarioResult& r);
+// With `observations` (a run of a scenario with [[observation]] tables, whose
+// scenario is `r`), the page also answers them.
+std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations = nullptr);
 
 } // namespace ts

@@ -17,12 +17,6 @@ namespace {
 
 std::string code(const std::string& s, Format f) { return inline_code(s, f); }
 
-std::string heading(const std::string& s, Format f, int level = 2) {
-  if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
-  if (f == Format::latex) return std::string(level <= 1 ? "\\section*{" : "\\subsection*{") + latex_escape(s) + "}\n";
-  return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
-}
-
 // What a person reads: the type with its elements in words for a non-standard setting
 // (JSON keeps the setting symbol itself, sample_frame_symbol).
 std::string group_name(const ChainStep& st) { return st.readable_symbol; }
@@ -173,110 +167,114 @@ std::string fractions_text(const DomainReport& d) {
 
 } // namespace
 
+toml::table scenario_json(const ScenarioResult& r) {
+  const auto& sc = r.scenario;
+  const LatticeKind lattice = r.chain.front().group.lattice();
+  toml::table root;
+  root.insert("title", sc.title);
+  root.insert("source", sc.source);
+  root.insert("parent_note", r.parent_note);
+  root.insert("frame", toml::table{{"x", r.frame_labels[0]}, {"y", r.frame_labels[1]}, {"z", r.frame_labels[2]}});
+  toml::array chain;
+  for (std::size_t i = 0; i < r.chain.size(); ++i) {
+    const auto& st = r.chain[i];
+    toml::array ops, lost;
+    for (const auto& op : st.group.operations()) ops.push_back(op.symbol(lattice));
+    for (const auto& l : st.lost) lost.push_back(l);
+    chain.push_back(toml::table{{"step", static_cast<std::int64_t>(i)},
+                                {"label", st.label},
+                                {"quantity", st.quantity},
+                                {"type", st.id.type->symbol},
+                                {"schoenflies", st.id.type->schoenflies},
+                                {"sample_frame_symbol", st.sample_symbol},
+                                {"standard_setting", standard_axes(st, lattice)},
+                                {"order", static_cast<std::int64_t>(st.group.order())},
+                                {"operations", ops},
+                                {"lost", lost}});
+  }
+  root.insert("chain", chain);
+  toml::array parts;
+  for (std::size_t k = 0; k < r.parts.size(); ++k) {
+    const auto& p = r.parts[k];
+    toml::array counts;
+    for (int c : p.counts) counts.push_back(static_cast<std::int64_t>(c));
+    toml::table final_form;
+    FrameContext fc{r.frame_labels, false};
+    form_json(p.forms.back(), context_of(r.chain.back(), lattice), fc, final_form);
+    toml::array changes;
+    for (const auto& ch : r.changes) {
+      if (ch.part != k) continue;
+      toml::array on, broken;
+      for (const auto& s : ch.switched_on) on.push_back(s);
+      for (const auto& b : ch.broken) broken.push_back(relation_text(b, Format::text));
+      changes.push_back(toml::table{{"step", static_cast<std::int64_t>(ch.step)},
+                                    {"independent_before", ch.before},
+                                    {"independent_after", ch.after},
+                                    {"switched_on", on},
+                                    {"relations_broken", broken}});
+    }
+    toml::array planar, skipped;
+    for (auto v : p.planar) planar.push_back(planar_reading_text(v));
+    for (bool v : p.field_step_skipped) skipped.push_back(v);
+    toml::table entry{{"planar_bar_by_step", planar},
+                      {"field_step_not_applied", skipped},
+                      {"response", p.response_id},
+                      {"response_name", p.response_name},
+                      {"part", p.part_label},
+                      {"spec", p.spec.canonical_text()},
+                      {"independent_by_step", counts},
+                      {"final", final_form},
+                      {"changes", changes}};
+    for (const auto& d : r.domains) {
+      if (d.part != k) continue;
+      toml::array vars;
+      for (const auto& v : d.analysis.variants)
+        vars.push_back(toml::table{{"representative", v.representative.symbol(lattice)},
+                                   {"components", tensor_components_text(v.tensor, d.form, Format::text)}});
+      toml::array fractions, fields;
+      for (const auto& w : d.fractions) fractions.push_back(w.str());
+      for (const auto& t : d.in_field) {
+        toml::array per;
+        for (std::size_t v = 0; v < t.variants.size(); ++v)
+          per.push_back(toml::table{{"representative", d.analysis.variants[v].representative.symbol(lattice)},
+                                    {"components", tensor_components_text(t.variants[v], d.form, Format::text, &t.form)}});
+        fields.push_back(toml::table{{"field", t.field.label},
+                                     {"expansion", t.expansion.name + ": " + t.expansion.description()},
+                                     {"expansion_independent", t.form.independent()},
+                                     {"variants", per},
+                                     {"average", tensor_components_text(t.average, d.form, Format::text, &t.form)}});
+      }
+      entry.insert("domains", toml::table{{"from_step", static_cast<std::int64_t>(d.from_step)},
+                                          {"variants", vars},
+                                          {"domain_group", d.domain_symbol},
+                                          {"fractions", fractions},
+                                          {"in_field", fields},
+                                          {"average", tensor_components_text(d.analysis.average, d.form, Format::text)}});
+    }
+    parts.push_back(entry);
+  }
+  root.insert("parts", parts);
+  root.insert("bars", bars_json(r));
+  root.insert("layouts", layouts_json(r));
+  if (!r.shg.empty()) root.insert("shg", shg_json(r));
+  if (!r.kerr.empty()) root.insert("magneto_optics", kerr_json(r));
+  if (sc.figures.present) root.insert("figures", figures_json(scenario_figures(r, figure_settings(sc.figures))));
+  return root;
+}
+
 std::string write_scenario(const ScenarioResult& r, Format f) {
   const auto& sc = r.scenario;
   const LatticeKind lattice = r.chain.front().group.lattice();
   const std::string frame_text = "x ∥ " + r.frame_labels[0] + ", y ∥ " + r.frame_labels[1] + ", z ∥ " + r.frame_labels[2];
-  if (f == Format::json) {
-    toml::table root;
-    root.insert("title", sc.title);
-    root.insert("source", sc.source);
-    root.insert("parent_note", r.parent_note);
-    root.insert("frame", toml::table{{"x", r.frame_labels[0]}, {"y", r.frame_labels[1]}, {"z", r.frame_labels[2]}});
-    toml::array chain;
-    for (std::size_t i = 0; i < r.chain.size(); ++i) {
-      const auto& st = r.chain[i];
-      toml::array ops, lost;
-      for (const auto& op : st.group.operations()) ops.push_back(op.symbol(lattice));
-      for (const auto& l : st.lost) lost.push_back(l);
-      chain.push_back(toml::table{{"step", static_cast<std::int64_t>(i)},
-                                  {"label", st.label},
-                                  {"quantity", st.quantity},
-                                  {"type", st.id.type->symbol},
-                                  {"schoenflies", st.id.type->schoenflies},
-                                  {"sample_frame_symbol", st.sample_symbol},
-                                  {"standard_setting", standard_axes(st, lattice)},
-                                  {"order", static_cast<std::int64_t>(st.group.order())},
-                                  {"operations", ops},
-                                  {"lost", lost}});
-    }
-    root.insert("chain", chain);
-    toml::array parts;
-    for (std::size_t k = 0; k < r.parts.size(); ++k) {
-      const auto& p = r.parts[k];
-      toml::array counts;
-      for (int c : p.counts) counts.push_back(static_cast<std::int64_t>(c));
-      toml::table final_form;
-      FrameContext fc{r.frame_labels, false};
-      form_json(p.forms.back(), context_of(r.chain.back(), lattice), fc, final_form);
-      toml::array changes;
-      for (const auto& ch : r.changes) {
-        if (ch.part != k) continue;
-        toml::array on, broken;
-        for (const auto& s : ch.switched_on) on.push_back(s);
-        for (const auto& b : ch.broken) broken.push_back(relation_text(b, Format::text));
-        changes.push_back(toml::table{{"step", static_cast<std::int64_t>(ch.step)},
-                                      {"independent_before", ch.before},
-                                      {"independent_after", ch.after},
-                                      {"switched_on", on},
-                                      {"relations_broken", broken}});
-      }
-      toml::array planar, skipped;
-      for (auto v : p.planar) planar.push_back(planar_reading_text(v));
-      for (bool v : p.field_step_skipped) skipped.push_back(v);
-      toml::table entry{{"planar_bar_by_step", planar},
-                        {"field_step_not_applied", skipped},
-                        {"response", p.response_id},
-                        {"response_name", p.response_name},
-                        {"part", p.part_label},
-                        {"spec", p.spec.canonical_text()},
-                        {"independent_by_step", counts},
-                        {"final", final_form},
-                        {"changes", changes}};
-      for (const auto& d : r.domains) {
-        if (d.part != k) continue;
-        toml::array vars;
-        for (const auto& v : d.analysis.variants)
-          vars.push_back(toml::table{{"representative", v.representative.symbol(lattice)},
-                                     {"components", tensor_components_text(v.tensor, d.form, Format::text)}});
-        toml::array fractions, fields;
-        for (const auto& w : d.fractions) fractions.push_back(w.str());
-        for (const auto& t : d.in_field) {
-          toml::array per;
-          for (std::size_t v = 0; v < t.variants.size(); ++v)
-            per.push_back(toml::table{{"representative", d.analysis.variants[v].representative.symbol(lattice)},
-                                      {"components", tensor_components_text(t.variants[v], d.form, Format::text, &t.form)}});
-          fields.push_back(toml::table{{"field", t.field.label},
-                                       {"expansion", t.expansion.name + ": " + t.expansion.description()},
-                                       {"expansion_independent", t.form.independent()},
-                                       {"variants", per},
-                                       {"average", tensor_components_text(t.average, d.form, Format::text, &t.form)}});
-        }
-        entry.insert("domains", toml::table{{"from_step", static_cast<std::int64_t>(d.from_step)},
-                                            {"variants", vars},
-                                            {"domain_group", d.domain_symbol},
-                                            {"fractions", fractions},
-                                            {"in_field", fields},
-                                            {"average", tensor_components_text(d.analysis.average, d.form, Format::text)}});
-      }
-      parts.push_back(entry);
-    }
-    root.insert("parts", parts);
-    root.insert("bars", bars_json(r));
-    root.insert("layouts", layouts_json(r));
-    if (!r.shg.empty()) root.insert("shg", shg_json(r));
-    if (!r.kerr.empty()) root.insert("magneto_optics", kerr_json(r));
-    if (sc.figures.present) root.insert("figures", figures_json(scenario_figures(r, figure_settings(sc.figures))));
-    return json_text(root);
-  }
+  if (f == Format::json) return json_text(scenario_json(r));
 
   std::ostringstream os;
-  os << heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
+  os << section_heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
   if (f == Format::text) os << "source: " << sc.source << "\n";
   if (!r.parent_note.empty()) os << (f == Format::latex ? "\\noindent " : "") << "parent: " << r.parent_note << "\n";
   os << (f == Format::latex ? "\n\\noindent " : "") << "sample frame: " << frame_text << " (right-handed, y = z × x)\n\n";
 
-  os << heading("symmetry chain", f);
+  os << section_heading("symmetry chain", f);
   std::vector<std::vector<std::string>> rows;
   for (std::size_t i = 0; i < r.chain.size(); ++i) {
     const auto& st = r.chain[i];
@@ -300,7 +298,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   // Many responses at once (--response all, a family): the verdicts first, one line each.
   if (r.parts.size() > 3 && r.chain.size() > 1) {
     const std::size_t last = r.chain.size() - 1;
-    os << heading("summary: what the last step (" + r.chain[last].label + ") switched on", f);
+    os << section_heading("summary: what the last step (" + r.chain[last].label + ") switched on", f);
     std::vector<std::string> on, allowed, forbidden;
     for (const auto& p : r.parts) {
       const std::string name = (p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label);
@@ -320,7 +318,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
 
   for (std::size_t k = 0; k < r.parts.size(); ++k) {
     const auto& p = r.parts[k];
-    os << heading(p.response_id.empty() ? "tensor " + p.spec.canonical_text()
+    os << section_heading(p.response_id.empty() ? "tensor " + p.spec.canonical_text()
                                         : p.response_name + " [" + p.response_id + "]: " + p.part_label,
                   f);
     std::vector<std::vector<std::string>> counts;
@@ -362,7 +360,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     for (const auto& d : r.domains) {
       if (d.part != k) continue;
       const std::string& dg = d.domain_symbol;
-      os << heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
+      os << section_heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
                         group_name(r.chain[d.from_step]) + " (spontaneous steps only; applied fields form no domains)",
                     f, 3);
       // A rank-6 tensor over 96 variants would print a gigabyte: a person reads the
@@ -395,7 +393,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
          << "\n";
       for (const auto& t : d.in_field) {
         const std::string field_symbol = t.expansion.name.substr(p.spec.name.size());
-        os << heading("every variant in the lab-frame " + t.field.label + ": the part linear in the field, per unit " +
+        os << section_heading("every variant in the lab-frame " + t.field.label + ": the part linear in the field, per unit " +
                           field_symbol + " (" + t.expansion.name + " = d" + p.spec.name + "/d" + field_symbol + ", " +
                           std::to_string(t.form.independent()) + " independent in " + dg + ")",
                       f, 3);

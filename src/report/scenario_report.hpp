@@ -3,6 +3,7 @@
 // switched on, and the domain variants with their average.
 #pragma once
 
+#include "report/json_text.hpp"
 #include "report/report_format.hpp"
 #include "scenario/scenario_run.hpp"
 
@@ -11,5 +12,7 @@
 namespace ts {
 
 std::string write_scenario(const ScenarioResult& result, Format format);
+// The JSON object of write_scenario(result, json), for reports that add to it.
+toml::table scenario_json(const ScenarioResult& result);
 
 } // namespace ts

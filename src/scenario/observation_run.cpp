@@ -115,6 +115,7 @@ void answer_observation(const PointGroup& parent, const Frame& frame, const Latt
     s.breaking = m;
     s.id = identify(m.group, cat);
     s.sample_symbol = sample_symbol(m.group, s.id, frame);
+    s.readable_symbol = readable_symbol(m.group, s.id, s.sample_symbol, true);
     for (const auto& op : m.group.operations()) s.operations.push_back(op.symbol(lattice));
     for (const auto& p : m.producers) s.producers.push_back(producer_words(p, m.group, frame, lattice, metric));
     if (observation.readings_in) s.versions = observation.readings_in(m.group);

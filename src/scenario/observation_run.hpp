@@ -15,6 +15,7 @@ struct ObservationSolution {
   MinimalBreaking breaking;
   Identification id;
   std::string sample_symbol;            // tabulated setting in the sample frame, else empty
+  std::string readable_symbol;          // for people (readable_symbol in scenario_run.hpp)
   std::vector<std::string> operations;  // crystal-axes symbols: they fix the orientation
   std::vector<std::string> producers;   // in words; empty: a higher-order order parameter
   std::vector<std::string> versions;    // which of i-type, c-type show the signal in this group

@@ -91,8 +91,6 @@ Vec3 step_direction(const std::string& text, const std::string& system, LatticeK
   return metric_direction(parse_direction(text, where), system, lattice, m, where);
 }
 
-std::string group_label(const ChainStep& st) { return st.sample_symbol.empty() ? st.id.type->symbol : st.sample_symbol; }
-
 PointGroup tilt_group(const std::string& glazer, const PointGroup& current, const std::string& where) {
   TiltedPerovskite tp = build_tilted_perovskite(parse_glazer_symbol(glazer));
   std::vector<Operation> ops;
@@ -209,6 +207,23 @@ StepChange compare(const AllowedForm& before, const AllowedForm& after) {
 
 } // namespace
 
+std::string readable_symbol(const PointGroup& g, const Identification& id, const std::string& sample_symbol,
+                            bool with_words) {
+  const std::string& type = id.type->symbol;
+  auto worded = [&](const std::string& symbol) {
+    const std::string words = elements_in_words(g, g.lattice());
+    return words.empty() ? symbol : symbol + " (" + words + ")";
+  };
+  if (sample_symbol.empty()) return with_words ? worded(type) : type;
+  // A setting written with 1 positions says little to a reader: its type and its
+  // elements instead. Named variants such as mm'2' stay.
+  std::string plain = sample_symbol;
+  if (g.is_grey() && plain.size() > 2) plain.resize(plain.size() - 2);
+  const bool cryptic = sample_symbol != type && plain.find('1') != std::string::npos;
+  if (cryptic) return worded(type);
+  return with_words ? worded(sample_symbol) : sample_symbol;
+}
+
 std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame) {
   if (frame.is_identity()) return id.same_setting ? id.same_setting->symbol : "";
   for (const auto& cand : GroupCatalogue::builtin().groups())
@@ -315,13 +330,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
     st.quantity = quantity;
     st.id = identify(g, cat);
     st.sample_symbol = sample_symbol(g, st.id, res.frame);
-    // A setting written with 1 positions (m11, m111', 112/m) says little to a reader:
-    // print its type and its elements instead. Named variants such as mm'2' stay.
-    std::string plain = st.sample_symbol;
-    if (g.is_grey() && plain.size() > 2) plain.resize(plain.size() - 2);
-    const bool cryptic = !st.sample_symbol.empty() && st.sample_symbol != st.id.type->symbol &&
-                         plain.find('1') != std::string::npos;
-    st.readable_symbol = cryptic ? st.id.type->symbol + " (" + elements_in_words(g, lattice) + ")" : group_label(st);
+    st.readable_symbol = readable_symbol(g, st.id, st.sample_symbol);
     if (!res.chain.empty())
       for (const auto& op : res.chain.back().group.operations())
         if (!g.contains(op)) st.lost.push_back(op.symbol(lattice));

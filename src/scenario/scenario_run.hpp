@@ -142,5 +142,12 @@ ScenarioResult run_scenario(const Scenario& scenario);
 
 // HM symbol of a tabulated setting whose axes are the sample frame's, else empty.
 std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame);
+// What a person reads for a group: its sample-frame symbol (4mm1', mm'2'), or the
+// type when no setting is tabulated in the sample frame; for a setting written with
+// 1 positions (m11, m111', 112/m) the type with its elements in words,
+// "m1' (mirror ⊥ [100])". With `with_words`, the elements in words always follow
+// (a list of subgroups that differ only in orientation).
+std::string readable_symbol(const PointGroup& g, const Identification& id, const std::string& sample_symbol,
+                            bool with_words = false);
 
 } // namespace ts
