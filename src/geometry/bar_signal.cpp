@@ -122,17 +122,23 @@ PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const B
   ps.longitudinal.probe = Probe::longitudinal;
   ps.transverse.probe = Probe::transverse;
   ps.current_order = part.harmonic;
-  for (const auto& r : part.indices)
+  for (const auto& r : part.indices) {
     if (r == "B" || r == "M") {
       ++ps.field_order;
       ps.field_role = r;
     }
+    if (r == "joule") ++ps.joule_order;
+  }
+  ps.direction_order = ps.current_order - 2 * ps.joule_order;
   ps.harmonics = lock_in_factors(ps.current_order, m.waveform);
   if (ps.field_order > 0 && m.field == FieldGeometry::none) {
     ps.needs_field = true;
     return ps;
   }
   const TrigVector u = current_vector(m), v = transverse_vector(m), b = field_vector(m);
+  // Joule heating warms the film from within and the substrate takes the heat away,
+  // so its gradient is along the normal whichever way the current runs.
+  const TrigVector normal{TrigPoly(), TrigPoly(), TrigPoly::constant(Rational(1))};
   const std::string drive_role = part.drive == DriveKind::current ? "j" : "E";
   const bool has_hall_vector = std::find(part.indices.begin(), part.indices.end(), "h") != part.indices.end();
   for (Probe probe : {Probe::longitudinal, Probe::transverse}) {
@@ -145,6 +151,7 @@ PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const B
       if (r == "h") vectors.push_back(&hall_probe);
       else if (i == 0 && !has_hall_vector) vectors.push_back(&p);
       else if (r == drive_role) vectors.push_back(&u);
+      else if (r == "joule") vectors.push_back(&normal);
       else vectors.push_back(&b); // B or M
     }
     ProbeSignal& out = probe == Probe::longitudinal ? ps.longitudinal : ps.transverse;
@@ -160,7 +167,8 @@ PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const B
   if (m.rotating && !tied) {
     ps.hall_split = true;
     SignalSeries gradient;
-    gradient.add(ps.longitudinal.series.derivative_phi(), Rational(1, ps.current_order + 1));
+    // S_⊥ = S_∥'/(d+1) + H for a response of degree d in the current's direction.
+    gradient.add(ps.longitudinal.series.derivative_phi(), Rational(1, ps.direction_order + 1));
     SignalSeries hall = ps.transverse.series;
     hall.add(gradient, Rational(-1));
     ps.transverse.gradient_terms = real_fourier_terms(gradient);

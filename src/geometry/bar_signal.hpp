@@ -56,6 +56,8 @@ std::vector<HarmonicFactor> lock_in_factors(int order, Waveform w);
 struct PartSignal {
   const ResponsePart* part = nullptr;
   int current_order = 0;        // n: the power of the current (harmonics n, n-2, ...)
+  int direction_order = 0;      // powers of the current's direction: n less two per joule index
+  int joule_order = 0;          // joule indices: the heat gradient along the normal, each ∝ I²
   int field_order = 0;          // powers of B or M
   std::string field_role;       // "B", "M" or empty
   bool needs_field = false;     // field_order > 0 but the measurement has no field

@@ -4,6 +4,7 @@
 #include "report/expression_text.hpp"
 #include "report/series_text.hpp"
 
+#include <algorithm>
 #include <map>
 #include <set>
 #include <sstream>
@@ -42,22 +43,41 @@ std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm
   return f == Format::latex ? "$" + body + "$" : body;
 }
 
+// The geometry of V = R_n I^n for one probe: the probe's length (L along the bar, w
+// across it) over (w t)^d for d powers of the current density j = I/(w t), times G
+// for each power of the Joule-heating gradient ∂_z T = G I². Text: "L/(w*t)^2",
+// "w*G"; LaTeX: "\frac{L}{(w t)^{2}}", "w G".
+std::string geometry_factor(const PartSignal& ps, Probe probe, TextStyle style) {
+  const std::string length = probe == Probe::longitudinal ? "L" : "w";
+  const int d = ps.direction_order, k = ps.joule_order;
+  const bool latex = style == TextStyle::latex;
+  std::string top = length;
+  if (k > 0) top += (latex ? " G" : "*G") + (k == 1 ? "" : (latex ? "^{" + std::to_string(k) + "}" : "^" + std::to_string(k)));
+  if (d == 0) return top;
+  if (latex) return "\\frac{" + top + "}{" + (d == 1 ? std::string("w t") : "(w t)^{" + std::to_string(d) + "}") + "}";
+  return top + "/" + (d == 1 ? std::string("(w*t)") : "(w*t)^" + std::to_string(d));
+}
+
+// The same for people: "L/(w t)^2", "w G".
+std::string spaced(std::string s) {
+  std::replace(s.begin(), s.end(), '*', ' ');
+  return s;
+}
+
 // R_n of V = R_n I^n for one probe, in a fixed order (GiNaC orders the terms of a
 // sum by hashes that change from run to run, so its printed form is not used):
 // "-rho0^3*L/(w*t)^2*(chi_xxy*sin(3phi))", or the LaTeX of the same.
 std::string coefficient_text(const PartSignal& ps, const ProbeSignal& p, const AllowedForm& form, TextStyle style) {
   const int n = ps.current_order;
-  const std::string length = p.probe == Probe::longitudinal ? "L" : "w";
   const std::string series = fourier_series_text(p.terms, form, style);
   const bool several = p.terms.size() > 1 || (p.terms.size() == 1 && p.terms[0].coefficient.size() > 1);
+  const std::string geometry = geometry_factor(ps, p.probe, style);
   if (style == TextStyle::latex) {
     std::string pre = ps.part->drive == DriveKind::field ? "-\\rho_0^{" + std::to_string(n + 1) + "} " : "";
-    std::string den = n == 1 ? "w t" : "(w t)^{" + std::to_string(n) + "}";
-    return pre + "\\frac{" + length + "}{" + den + "}" + (several ? " \\left(" + series + "\\right)" : " " + series);
+    return pre + geometry + (several ? " \\left(" + series + "\\right)" : " " + series);
   }
   std::string pre = ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(n + 1) + "*" : "";
-  std::string den = n == 1 ? "(w*t)" : "(w*t)^" + std::to_string(n);
-  return pre + length + "/" + den + "*" + (several ? "(" + series + ")" : series);
+  return pre + geometry + "*" + (several ? "(" + series + ")" : series);
 }
 
 std::string part_title(const ScenarioResult& r, std::size_t k) {
@@ -67,6 +87,9 @@ std::string part_title(const ScenarioResult& r, std::size_t k) {
 
 std::string order_text(const PartSignal& ps) {
   std::string s = "order I^" + std::to_string(ps.current_order);
+  if (ps.joule_order > 0)
+    s += " (through the Joule-heating gradient along the normal, ∂_z T = G I²" +
+         std::string(ps.joule_order > 1 ? ", to the power " + std::to_string(ps.joule_order) : "") + ")";
   if (ps.field_order > 0) s += ", " + ps.field_role + "^" + std::to_string(ps.field_order);
   if (ps.field_order % 2 == 1)
     s += " (odd in " + ps.field_role + ": antisymmetrise the readings in ±" + ps.field_role + ")";
@@ -176,7 +199,9 @@ std::string write_bars(const ScenarioResult& r, Format f) {
          << line(f);
       os << bullet(f)
          << prose(order_text(ps) + "; " +
-                      (ps.part->drive == DriveKind::current ? "answers the driven current (E = rho·j ...)"
+                      (ps.joule_order > 0 ? "answers the heat gradient the current makes (E = S·∂T ...; G is set by "
+                                            "the device and its substrate)"
+                       : ps.part->drive == DriveKind::current ? "answers the driven current (E = rho·j ...)"
                                                             : "answers a driving field (j = sigma·E ...): read through "
                                                               "-rho0^(n+1)"),
                   f)
@@ -201,9 +226,8 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         if (p->reads()) {
           std::string rn = std::string("R_") + std::to_string(ps.current_order) +
                            (p->probe == Probe::longitudinal ? "(∥)" : "(⊥)");
-          std::string n = std::to_string(ps.current_order);
           std::string pre = std::string(ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(ps.current_order + 1) + " " : "") +
-                            (p->probe == Probe::longitudinal ? "L" : "w") + "/(w t)" + (ps.current_order == 1 ? "" : "^" + n);
+                            spaced(geometry_factor(ps, p->probe, TextStyle::plain));
           os << sub_bullet(f) << prose(rn, f) << " = "
              << (f == Format::latex ? "$" + coefficient_text(ps, *p, form, TextStyle::latex) + "$"
                                     : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
@@ -222,7 +246,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         }
       }
       if (ps.hall_split && ps.transverse.reads()) {
-        os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.current_order + 1) + " + H: gradient part ", f)
+        os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.direction_order + 1) + " + H: gradient part ", f)
            << series_text(ps.transverse.gradient_terms, form, f) << "; dissipationless Hall part H = "
            << series_text(ps.transverse.hall_terms, form, f)
            << (ps.transverse.hall_terms.empty() ? " (the transverse signal follows from the longitudinal one)" : "")
@@ -308,6 +332,7 @@ toml::array bars_json(const ScenarioResult& r) {
       toml::table t{{"response", r.parts[s.part].response_id},
                     {"part", r.parts[s.part].part_label},
                     {"current_order", ps.current_order},
+                    {"joule_order", ps.joule_order},
                     {"field_order", ps.field_order},
                     {"field_role", ps.field_role},
                     {"drive", drive_kind_name(ps.part->drive)},

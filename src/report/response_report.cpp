@@ -37,7 +37,10 @@ std::string part_flags(const ResponsePart& p) {
 // "E j j B: response E, driven by a current; second power of the drive (harmonics up to 2ω)".
 std::string roles_text(const ResponsePart& p) {
   std::string out = p.indices.empty() ? "(a scalar)" : join(p.indices, " ");
-  if (p.drive != DriveKind::none)
+  const bool joule = std::find(p.indices.begin(), p.indices.end(), "joule") != p.indices.end();
+  if (joule)
+    out += "; answers the heat gradient a driven current makes along the normal (joule: ∂_z T = G I²)";
+  else if (p.drive != DriveKind::none)
     out += std::string("; ") + (p.drive == DriveKind::current ? "answers a driven current (E = rho·j)"
                                                              : "answers a driving field (j = sigma·E)");
   if (p.harmonic > 0) out += "; power " + std::to_string(p.harmonic) + " of the drive";

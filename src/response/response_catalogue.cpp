@@ -30,7 +30,7 @@ const std::vector<std::string>& response_statuses() {
 
 const std::vector<std::string>& response_index_roles() {
   static const std::vector<std::string> v{"E",  "j", "h", "B",     "M",      "S",          "Js",   "P",    "H", "light",
-                                          "k",  "g", "Q", "stress", "strain", "indicatrix", "heat", "gradT"};
+                                          "k",  "g", "Q", "stress", "strain", "indicatrix", "heat", "gradT", "joule"};
   return v;
 }
 
@@ -140,24 +140,29 @@ void read_roles(const TableReader& r, ResponsePart& p) {
   else if (drive == "field") p.drive = DriveKind::field;
   else r.error("drive", "unknown drive kind '" + drive + "'", "current (E = rho·j) or field (j = sigma·E)");
   const std::string in = p.drive == DriveKind::current ? "j" : "E", out = p.drive == DriveKind::current ? "E" : "j";
-  int drives = 0, halls = 0;
+  int drives = 0, halls = 0, joules = 0;
   for (std::size_t i = 0; i < p.indices.size(); ++i) {
     const std::string& x = p.indices[i];
     if (x == "h") ++halls;
     else if (x == in) ++drives;
+    else if (x == "joule" && p.drive == DriveKind::current) ++joules;
     else if (x == out && i == 0) continue;
     else if (x != "B" && x != "M")
       r.error("indices", "role '" + x + "' at index " + std::to_string(i + 1) + " is not part of a " + drive +
                              "-driven transport tensor",
-              out + " first (or one h), then " + in + ", B or M");
+              out + " first (or one h), then " + in + ", B, M" +
+                  (p.drive == DriveKind::current ? " or joule (the heat gradient along the normal, ∝ I²)" : ""));
   }
   bool response_first = p.indices.empty() ? false : (p.indices[0] == out || halls == 1);
   if (!response_first || halls > 1)
     r.error("indices", "a transport part needs the response " + out + " as its first index, or one Hall-vector index h");
-  if (drives + halls != p.harmonic)
-    r.error("harmonic", "is " + std::to_string(p.harmonic) + " but the part has " + std::to_string(drives + halls) +
-                            " powers of the drive " + in + (halls ? " (the Hall vector counts one: E = h × j)" : ""),
-            std::to_string(drives + halls));
+  // Joule heating is ∝ I², so each joule index carries two powers of the drive.
+  const int powers = drives + halls + 2 * joules;
+  if (powers != p.harmonic)
+    r.error("harmonic", "is " + std::to_string(p.harmonic) + " but the part has " + std::to_string(powers) +
+                            " powers of the drive " + in + (halls ? " (the Hall vector counts one: E = h × j)" : "") +
+                            (joules ? " (a joule index counts two: the heating is ∝ I²)" : ""),
+            std::to_string(powers));
 }
 
 ResponsePart parse_part(const toml::table& t, const std::string& file, const std::string& id, std::size_t index) {

@@ -28,6 +28,7 @@ struct ResponsePart {
   std::string label, spec_text, mechanism;
   TensorSpec spec;
   std::vector<std::string> indices; // role of each index: response first, then drives (response_index_roles())
+                                    // "joule": the Joule-heating gradient of T along the sample normal, ∝ I²
   int harmonic = 0;                 // power of the drive: highest harmonic it produces (0: static)
   DriveKind drive = DriveKind::none;
   bool hall = false; // dissipationless (j·E = 0)
@@ -85,7 +86,7 @@ private:
 const std::vector<std::string>& response_harmonics(); // 1ω, 2ω, 3ω, DC, 2ω+DC, static
 const std::vector<std::string>& response_drives();    // E, B, M, j, H, gradT, light, stress, strain, temperature
 const std::vector<std::string>& response_statuses();  // checked, title checked, from memory, common practice
-const std::vector<std::string>& response_index_roles(); // E, j, h, B, M, S, Js, P, H, light, k, g, Q, ...
+const std::vector<std::string>& response_index_roles(); // E, j, h, B, M, S, Js, P, H, light, k, g, Q, ..., joule
 const char* drive_kind_name(DriveKind k);              // "current", "field", ""
 // "Anomalous Hall" -> "anomalous-hall".
 std::string normalise_response_key(const std::string& s);
