@@ -41,7 +41,7 @@ Timing time_repeated(int repeats, const std::function<void()>& job) {
   return {t.front(), median_of(t), static_cast<int>(t.size())};
 }
 
-double seconds_of_process(const std::vector<std::string>& argv, int* status) {
+double seconds_of_process(const std::vector<std::string>& argv, int* status, long* page_faults) {
   std::vector<char*> args;
   for (const auto& a : argv) args.push_back(const_cast<char*>(a.c_str()));
   args.push_back(nullptr);
@@ -55,7 +55,9 @@ double seconds_of_process(const std::vector<std::string>& argv, int* status) {
   pid_t pid = 0;
   int rc = posix_spawn(&pid, args[0], &io, nullptr, args.data(), environ);
   int wstatus = 0;
-  if (rc == 0 && waitpid(pid, &wstatus, 0) == pid && WIFEXITED(wstatus)) *status = WEXITSTATUS(wstatus);
+  rusage used{};
+  if (rc == 0 && wait4(pid, &wstatus, 0, &used) == pid && WIFEXITED(wstatus)) *status = WEXITSTATUS(wstatus);
+  if (page_faults) *page_faults = used.ru_minflt + used.ru_majflt;
   auto t1 = Clock::now();
   posix_spawn_file_actions_destroy(&io);
   return std::chrono::duration<double>(t1 - t0).count();

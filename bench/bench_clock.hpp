@@ -39,7 +39,10 @@ ProbeOutcome run_in_child(int repeats, double timeout, const std::function<int()
 // Wall time of one run of a program (argv[0] is its path) as a child process,
 // standard output and error sent to /dev/null; the exit status goes to *status
 // (-1 when it could not be started or did not exit normally).
-double seconds_of_process(const std::vector<std::string>& argv, int* status);
+// With `page_faults`, also the child's page faults (minor and major, wait4's rusage):
+// on a virtual machine the first touch of a page costs microseconds, so they show
+// where start-up time goes that instruction counts miss.
+double seconds_of_process(const std::vector<std::string>& argv, int* status, long* page_faults = nullptr);
 
 // Peak resident set size in MiB (getrusage ru_maxrss): of this process, and of
 // the largest child that has been waited for.

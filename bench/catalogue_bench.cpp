@@ -230,7 +230,8 @@ void print_startup_figures(int repeats) {
     argv.insert(argv.end(), args.begin(), args.end());
     std::vector<double> t;
     int status = 0;
-    for (int i = 0; i < runs && status == 0; ++i) t.push_back(seconds_of_process(argv, &status));
+    long faults = 0;
+    for (int i = 0; i < runs && status == 0; ++i) t.push_back(seconds_of_process(argv, &status, &faults));
     std::string label = "start-up: tensorsieve";
     for (const auto& a : args)
       label += " " + (a.rfind(src + "/", 0) == 0 ? a.substr(src.size() + 1)
@@ -241,18 +242,19 @@ void print_startup_figures(int repeats) {
       continue;
     }
     const double median = median_of(t);
+    const std::string with_faults = duration_text(median) + " " + std::to_string(faults) + " pf";
     if (&args == &commands.front()) {
       floor = median;
-      print_figure(label + " (the floor)", duration_text(median));
+      print_figure(label + " (the floor)", with_faults);
       continue;
     }
     if (floor == 0) { // --version itself failed: no floor to compare with
-      print_figure(label, duration_text(median));
+      print_figure(label, with_faults);
       continue;
     }
     char ratio[32];
     std::snprintf(ratio, sizeof ratio, ", %.2fx", median / floor);
-    print_figure(label, duration_text(median), "< 1.5x --version", verdict(median < 1.5 * floor) + ratio);
+    print_figure(label, with_faults, "< 1.5x --version", verdict(median < 1.5 * floor) + ratio);
   }
   if (fd >= 0) ::unlink(scenario);
 }
