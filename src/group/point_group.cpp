@@ -67,15 +67,6 @@ PointGroup PointGroup::from_closed_set(std::vector<Operation> ops, LatticeKind l
   return g;
 }
 
-PointGroup PointGroup::from_canonical(std::vector<Operation> ops, LatticeKind lattice,
-                                      std::vector<Operation> generators) {
-  PointGroup g;
-  g.ops_ = std::move(ops);
-  g.lattice_ = lattice;
-  g.generators_cache_ = std::move(generators);
-  return g;
-}
-
 struct PointGroup::Packed {
   PackedOperations codes;
   std::once_flag once;

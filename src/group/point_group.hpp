@@ -31,11 +31,9 @@ public:
                              std::size_t max_order = 96, const std::string& where = {});
   // Wrap a set already known to be a group (sorted into canonical order).
   static PointGroup from_closed_set(std::vector<Operation> ops, LatticeKind lattice);
-  // Wrap operations already in canonical order with their generating set, as the
-  // built group table stores them (tests check the table against a derivation).
-  static PointGroup from_canonical(std::vector<Operation> ops, LatticeKind lattice,
-                                   std::vector<Operation> generators);
-  // The same, kept packed until the operations are first asked for: the catalogue
+  // Operations already in canonical order with their generating set, as the built
+  // group table stores them (tests check the table against a derivation), kept
+  // packed until the operations are first asked for: the catalogue
   // holds some 400 groups and a command looks at few of them, so decoding them all
   // (about a megabyte of exact matrices) would be most of its start-up.
   static PointGroup from_packed(PackedOperations packed, LatticeKind lattice);
