@@ -1,7 +1,7 @@
 // Crystal directions [uvw], [uvtw] and Miller indices of planes.
 #include "fuzz_input.hpp"
 #include "geometry/crystal_direction.hpp"
-#include "lowering/cut.hpp"
+#include "geometry/lattice_metric.hpp"
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
   const std::string s = ts::fuzz::text_of(data, size, 256);
