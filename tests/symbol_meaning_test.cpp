@@ -122,6 +122,12 @@ TEST_CASE("structural subgroup and magnetic order are different steps", "[symbol
   const auto run = run_cli({"run", (dir / "twin.toml").string()});
   REQUIRE(run.exit_code == 0);
   CHECK(has(run.out, "structural subgroup 4mm"));
+  // A step whose group already contains the sample's says that it changes nothing
+  // (4mm lies within m-3m in the same axes: common practice).
+  const auto idle = run_cli({"sample", "4mm", "--lower", "subgroup:m-3m", "--tensor", "V"});
+  REQUIRE(idle.exit_code == 0);
+  CHECK(has(idle.out, "step 1 changes nothing: every operation of step 0 keeps what it imposes"));
+  CHECK(!has(structural.out, "changes nothing"));
 }
 
 TEST_CASE("standard names of the two-orientation magnetic types", "[symbols]") {

@@ -285,7 +285,13 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   os << grid({"step", "imposed", "group", "Schoenflies", "order", "setting"}, rows, f);
   for (std::size_t i = 1; i < r.chain.size(); ++i) {
     const auto& lost = r.chain[i].lost;
-    if (lost.empty()) continue;
+    if (lost.empty()) {
+      // Say so: a step that keeps every operation usually means the imposed quantity
+      // or group already agreed with the sample (or was written in other axes than meant).
+      os << (f == Format::markdown ? "- " : "  ") << "step " << i << " changes nothing: every operation of step "
+         << i - 1 << " keeps what it imposes" << (f == Format::latex ? "\\\\" : "") << "\n";
+      continue;
+    }
     std::vector<std::string> shown;
     for (const auto& l : lost) shown.push_back(code(l, f));
     os << (f == Format::markdown ? "- " : "  ") << "step " << i << " removes " << lost.size() << " of "
