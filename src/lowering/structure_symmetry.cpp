@@ -162,6 +162,11 @@ Mat read_lattice(const toml::table& block, const std::string& where) {
   if (scale == 0 || std::fabs(det3(m)) < 1e-6 * scale)
     bad(where, lat ? lat : &block, "lattice", "the three lattice vectors are (nearly) coplanar or zero",
         "three linearly independent vectors a, b, c");
+  // A left-handed cell describes the same crystal, but spglib's magnetic search reads
+  // out of bounds on one (a crash found by fuzzing), so it is refused with the remedy.
+  if (det3(m) < 0)
+    bad(where, lat ? lat : &block, "lattice", "the lattice vectors a, b, c are left-handed: a·(b × c) < 0",
+        "a right-handed set: reverse one vector, or swap two");
   return m;
 }
 
