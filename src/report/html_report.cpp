@@ -175,8 +175,6 @@ void figures_section(const ScenarioResult& r, std::ostream& os) {
   }
 }
 
-} // namespace
-
 void observations_section(const ObservationRun& run, std::ostream& os) {
   os << "<h2>Observations: what the signals prove</h2>\n";
   for (const AnswerText& a : answers_text(run)) {
@@ -192,6 +190,8 @@ void observations_section(const ObservationRun& run, std::ostream& os) {
     os << "</table>\n<p class=\"dim\">" << esc(a.domains_note) << "</p>\n";
   }
 }
+
+} // namespace
 
 std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations) {
   const Scenario& sc = r.scenario;
