@@ -73,7 +73,7 @@ TEST_CASE("the anomalous Nernst voltage of the heating gradient is m × z in a (
   const PartSignal& a = part_signal(along, 0);
   CHECK(a.current_order == 2);
   CHECK(a.joule_order == 1);
-  CHECK(a.direction_order == 0);
+  CHECK(a.direction_order() == 0);
   CHECK(a.longitudinal.terms.empty());
   CHECK(functions(a.transverse.terms) == std::vector<std::string>{"1"});
   // Magnetisation fixed along [100] (sample x): E ∝ m × z = -y, so the bar reads

@@ -129,7 +129,6 @@ PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const B
     }
     if (r == "joule") ++ps.joule_order;
   }
-  ps.direction_order = ps.current_order - 2 * ps.joule_order;
   ps.harmonics = lock_in_factors(ps.current_order, m.waveform);
   if (ps.field_order > 0 && m.field == FieldGeometry::none) {
     ps.needs_field = true;
@@ -168,7 +167,7 @@ PartSignal bar_signal(const ResponsePart& part, const AllowedForm& form, const B
     ps.hall_split = true;
     SignalSeries gradient;
     // S_⊥ = S_∥'/(d+1) + H for a response of degree d in the current's direction.
-    gradient.add(ps.longitudinal.series.derivative_phi(), Rational(1, ps.direction_order + 1));
+    gradient.add(ps.longitudinal.series.derivative_phi(), Rational(1, ps.direction_order() + 1));
     SignalSeries hall = ps.transverse.series;
     hall.add(gradient, Rational(-1));
     ps.transverse.gradient_terms = real_fourier_terms(gradient);

@@ -56,7 +56,6 @@ std::vector<HarmonicFactor> lock_in_factors(int order, Waveform w);
 struct PartSignal {
   const ResponsePart* part = nullptr;
   int current_order = 0;        // n: the power of the current (harmonics n, n-2, ...)
-  int direction_order = 0;      // powers of the current's direction: n less two per joule index
   int joule_order = 0;          // joule indices: the heat gradient along the normal, each ∝ I²
   int field_order = 0;          // powers of B or M
   std::string field_role;       // "B", "M" or empty
@@ -65,6 +64,8 @@ struct PartSignal {
   ProbeSignal longitudinal, transverse;
   std::vector<HarmonicFactor> harmonics;
   bool reads() const { return longitudinal.reads() || transverse.reads(); }
+  // Powers of the current's direction: n less the two of each joule index.
+  int direction_order() const { return current_order - 2 * joule_order; }
 };
 
 // Whether a part meets a Hall bar at all (a transport part with a drive kind).

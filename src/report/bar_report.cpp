@@ -49,7 +49,7 @@ std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm
 // "w*G"; LaTeX: "\frac{L}{(w t)^{2}}", "w G".
 std::string geometry_factor(const PartSignal& ps, Probe probe, TextStyle style) {
   const std::string length = probe == Probe::longitudinal ? "L" : "w";
-  const int d = ps.direction_order, k = ps.joule_order;
+  const int d = ps.direction_order(), k = ps.joule_order;
   const bool latex = style == TextStyle::latex;
   std::string top = length;
   if (k > 0) top += (latex ? " G" : "*G") + (k == 1 ? "" : (latex ? "^{" + std::to_string(k) + "}" : "^" + std::to_string(k)));
@@ -246,7 +246,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         }
       }
       if (ps.hall_split && ps.transverse.reads()) {
-        os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.direction_order + 1) + " + H: gradient part ", f)
+        os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.direction_order() + 1) + " + H: gradient part ", f)
            << series_text(ps.transverse.gradient_terms, form, f) << "; dissipationless Hall part H = "
            << series_text(ps.transverse.hall_terms, form, f)
            << (ps.transverse.hall_terms.empty() ? " (the transverse signal follows from the longitudinal one)" : "")

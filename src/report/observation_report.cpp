@@ -10,8 +10,6 @@ namespace ts {
 
 namespace {
 
-std::string group_symbol(const ObservationSolution& s) { return s.readable_symbol; }
-
 std::string producers_text(const ObservationSolution& s) {
   return s.producers.empty() ? "no single vector or strain: a higher-order order parameter" : join(s.producers, "; or ");
 }
@@ -136,7 +134,7 @@ std::vector<AnswerText> answers_text(const ObservationRun& run) {
     for (std::size_t i = 0; i < a.solutions.size(); ++i) {
       const auto& s = a.solutions[i];
       const auto& m = s.breaking;
-      t.solutions.push_back({std::to_string(i + 1), group_symbol(s), std::to_string(m.group.order()),
+      t.solutions.push_back({std::to_string(i + 1), s.readable_symbol, std::to_string(m.group.order()),
                              std::to_string(m.index), std::to_string(m.variants), join(s.versions, ", "),
                              domains_text(m), s.operations, producers_text(s)});
     }
