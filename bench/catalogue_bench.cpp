@@ -438,6 +438,51 @@ int run(const Args& args) {
     print_figure("layout: 12 responses, 26 low-index directions, 2 field geometries", duration_text(tl.median), "< 1 s",
                  verdict(tl.median < 1.0));
   }
+  // ---- what a probe reads: sums and plans over every mechanism at a harmonic ------------
+  {
+    std::printf("\n");
+    Scenario sc = load_scenario(std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml");
+    const ScenarioResult res = run_scenario(sc);
+    const auto inputs = probe_sum_inputs(res, {});
+    Timing ts = time_repeated(R, [&] { (void)probe_sum(inputs, res.bars.at(0).measurement); });
+    print_figure("probe sums: default example's bar, every mechanism per probe and harmonic", duration_text(ts.median));
+    const LatticeKind lattice = res.chain.front().group.lattice();
+    PlanGeometry geometry{&res.sample, res.system, lattice, res.metric, Waveform::sine};
+    const LayoutSpec& l = sc.layouts.at(0);
+    auto candidates = layout_candidates(l.directions, l.rosette, res.sample, res.system, lattice, res.metric, "bench");
+    Timing tp = time_repeated(R, [&] { (void)design_plan(inputs, 2, candidates, l.fields, geometry); });
+    print_figure("plan: default example at 2ω, every mechanism together (exact rank)", duration_text(tp.median),
+                 "< 0.1 s", verdict(tp.median < 0.1));
+
+    Scenario film;
+    film.group = "m-3m";
+    film.cut = "(111)";
+    LoweringStep field;
+    field.kind = LoweringKind::magnetic_field;
+    field.along = "[1-10]";
+    film.steps.push_back(field);
+    film.responses = {"second-order-conductivity", "berry-curvature-dipole", "intrinsic-nonlinear-hall",
+                      "magnetochiral-anisotropy", "unidirectional-magnetoresistance"};
+    LayoutSpec plan2;
+    plan2.harmonic = 2;
+    plan2.fields = {"along-current", "across-current"};
+    film.layouts.push_back(plan2);
+    const ScenarioResult fr = run_scenario(film);
+    const auto film_inputs = probe_sum_inputs(fr, {});
+    auto film_candidates = layout_candidates({}, {}, fr.sample, fr.system, fr.chain.front().group.lattice(), fr.metric,
+                                             "bench");
+    PlanGeometry fg{&fr.sample, fr.system, fr.chain.front().group.lattice(), fr.metric, Waveform::sine};
+    MeasurementPlan shown = design_plan(film_inputs, 2, film_candidates, plan2.fields, fg);
+    Timing tf = time_repeated(R, [&] { (void)design_plan(film_inputs, 2, film_candidates, plan2.fields, fg); });
+    print_figure("plan: (111) film in a field, " + std::to_string(shown.mechanisms.size()) + " mechanisms, " +
+                     std::to_string(shown.columns.size()) + " unknowns, " + std::to_string(film_candidates.size()) +
+                     " directions at 2ω",
+                 duration_text(tf.median), "< 0.1 s", verdict(tf.median < 0.1));
+
+    Scenario torques = load_scenario(std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/magnetised-film-harmonic-hall.toml");
+    Timing tt = time_repeated(R, [&] { (void)run_scenario(torques); });
+    print_figure("run: harmonic Hall to third order in m (rank-6 expansion), sums and plan", duration_text(tt.median));
+  }
   print_inverse_figures(R);
 
   // ---- memory and summary ---------------------------------------------------------------

@@ -3,6 +3,7 @@
 #include "geometry/signal_expression.hpp"
 #include "scenario/scenario_run.hpp"
 #include "support/cli_run.hpp"
+#include "support/film_scenario.hpp"
 
 #include <catch2/catch.hpp>
 
@@ -12,23 +13,10 @@
 #include <set>
 
 using namespace ts;
+using ts::test::film;
 using ts::test::run_cli;
 
 namespace {
-
-Scenario film(const std::string& group, const std::string& cut, const std::vector<std::string>& responses,
-              const std::string& current, const std::string& field) {
-  Scenario sc;
-  sc.group = group;
-  sc.cut = cut;
-  sc.responses = responses;
-  BarSpec b;
-  b.name = "test bar";
-  b.current = current;
-  b.field = field;
-  sc.bars.push_back(b);
-  return sc;
-}
 
 // The signal of part `part` (0-based, in catalogue order) of the only response.
 const PartSignal& signal_of(const ScenarioResult& r, std::size_t part) {

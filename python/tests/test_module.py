@@ -156,6 +156,25 @@ def test_bar_signals_from_a_scenario_dict():
     assert chi["lock_in"][1] == {"harmonic": 2, "x_factor": "0", "y_factor": "-sqrt(2)/2"}
 
 
+def test_probe_sums_and_plans_from_a_scenario_dict():
+    # Unidirectional magnetoresistance ∝ (z × m)·j on a magnetised (001) film (Avci et al., Nat. Phys. 11,
+    # 570 (2015), from memory) meets the anomalous Nernst voltage of the Joule gradient with the same
+    # parities and angle functions: symmetry cannot separate them (Avci et al., PRB 90, 224427 (2014)).
+    report = ts.scenario({"title": "magnetised film", "responses": ["unidirectional-magnetoresistance"],
+                          "crystal": {"group": "m-3m"}, "sample": {"cut": "(001)"},
+                          "bar": [{"current": "[100]", "field": "in-plane"}],
+                          "layout": [{"harmonic": 2, "rosette": [0, 45, 90]}]})
+    total = report["probe_sums"][0]
+    labels = [m["label"] for m in total["mechanisms"]]
+    assert any("anomalous Nernst" in label for label in labels)
+    longitudinal = [r for r in total["readings"] if r["probe"] == "longitudinal" and r["harmonic"] == 2][0]
+    handles = {(labels[s["a"]], labels[s["b"]]): s["handle"] for s in longitudinal["separations"]}
+    umr_ane = [h for (a, b), h in handles.items() if "unidirectional" in a and "Nernst of the magnetisation, i" in b]
+    assert umr_ane == ["indistinguishable by symmetry"]
+    plan = report["plans"][0]
+    assert plan["harmonic"] == 2 and plan["rank"] == plan["rank_all"]
+
+
 def test_structure_files_and_screening():
     s = ts.structure(os.path.join(DATA, "cr2o3-afm.mcif"))
     # Cr2O3: -3'm' (Dzyaloshinskii 1960); BNS 167.106 from memory, spglib agrees.

@@ -17,17 +17,20 @@ void setup_run(CLI::App& app) {
     OutputOptions out;
     FigureOptions figures;
     std::string file, fractions;
+    std::vector<std::string> orders;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses, observations");
   cmd->add_option("scenario", o->file, "scenario TOML file (docs/scenarios.md)")->required();
   add_fractions_option(*cmd, o->fractions);
+  add_order_option(*cmd, o->orders);
   add_figure_options(*cmd, o->figures);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     if (o->out.format != "html") parse_format(o->out.format); // a bad format fails before the run
     Scenario sc = load_scenario(o->file);
     apply_fractions_option(o->fractions, sc);
+    apply_order_options(o->orders, sc);
     apply_figure_options(o->figures, sc);
     if (sc.observations.empty()) {
       emit_scenario(o->out, run_scenario(sc));
@@ -45,7 +48,7 @@ void setup_sample(CLI::App& app) {
     FigureOptions figures;
     SampleOptions sample;
     std::string fractions;
-    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr;
+    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr, orders;
     bool shg_local_field = false;
     std::string shg_indices;
     std::string waveform = "sine";
@@ -67,6 +70,7 @@ void setup_sample(CLI::App& app) {
       ->allow_extra_args(false);
   cmd->add_flag("--domains", o->sample.sc.domains, "orientation domains of the lowering and their average");
   add_fractions_option(*cmd, o->fractions);
+  add_order_option(*cmd, o->orders);
   cmd->add_option("--bar", o->bars,
                   "a Hall bar CURRENT[:FIELD] (repeatable): CURRENT is rotating, an in-plane [uvw] or an angle from x "
                   "(multiple of 15°); FIELD is none, in-plane, normal, any, along-current, across-current, [uvw] or "
@@ -126,6 +130,7 @@ void setup_sample(CLI::App& app) {
            "--shg reflection:45 --shg-indices 1,2.2+0.01i,2.3+0.05i");
     if (!o->shg.empty() && default_responses) sc.responses.push_back("electric-dipole-shg");
     apply_fractions_option(o->fractions, sc);
+    apply_order_options(o->orders, sc);
     // Neither given: the empty group symbol is refused by the catalogue with its own message.
     if (!sc.group.empty() && !o->structure_file.empty())
       fail(ErrorKind::usage, "give the parent crystal once: a point group or --structure-file", "group/--structure-file",
@@ -159,7 +164,8 @@ void setup_sample(CLI::App& app) {
         spec.rosette.push_back(std::stoi(a));
       }
       sc.layouts.push_back(spec);
-      if (std::find(sc.responses.begin(), sc.responses.end(), spec.response) == sc.responses.end())
+      if (!spec.response.empty() &&
+          std::find(sc.responses.begin(), sc.responses.end(), spec.response) == sc.responses.end())
         sc.responses.push_back(spec.response);
     }
     if (!o->rosette.empty() && o->layouts.empty())

@@ -68,4 +68,27 @@ inline void apply_fractions_option(const std::string& text, Scenario& sc) {
     fail(ErrorKind::usage, "--domain-fractions need domains", "--domain-fractions", "--domains (sample) or domains = true");
 }
 
+inline void add_order_option(CLI::App& cmd, std::vector<std::string>& orders) {
+  cmd.add_option("--order", orders,
+                 "expand RESPONSE in B or M to order N, RESPONSE=N (repeatable), e.g. harmonic-hall-torques=3")
+      ->allow_extra_args(false);
+}
+
+// --order RESPONSE=N: replaces the order of that response in a scenario file.
+inline void apply_order_options(const std::vector<std::string>& orders, Scenario& sc) {
+  for (const auto& text : orders) {
+    const std::string where = "--order " + text;
+    const auto eq = text.find('=');
+    const std::string id = eq == std::string::npos ? "" : text.substr(0, eq);
+    const std::string n = eq == std::string::npos ? "" : text.substr(eq + 1);
+    const bool digits = !n.empty() && n.size() <= 2 && n.find_first_not_of("0123456789") == std::string::npos;
+    if (id.empty() || !digits || std::stoi(n) < 1 || std::stoi(n) > 6)
+      fail(ErrorKind::usage, "'" + text + "' is not RESPONSE=ORDER", where,
+           "a response id and an order from 1 to 6, e.g. --order harmonic-hall-torques=3");
+    sc.expansion_orders[id] = std::stoi(n);
+    sc.expansion_where = where;
+    sc.expansion_bad_value = ErrorKind::usage;
+  }
+}
+
 } // namespace ts::cli

@@ -2,7 +2,7 @@
 
 #include "core/error.hpp"
 
-#include <Eigen/SVD>
+#include "geometry/svd_rank.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -14,11 +14,6 @@ namespace ts {
 
 namespace {
 
-// Singular values below this fraction of the largest count as zero. The
-// coefficients are small algebraic numbers (sums of ±√2, √3, √6 over small
-// integers), so a true zero is 0 and a nonzero is far above the threshold.
-constexpr double rank_tolerance = 1e-9;
-
 Eigen::MatrixXd matrix_of(const std::vector<const LayoutRow*>& rows, int cols) {
   Eigen::MatrixXd m(static_cast<Eigen::Index>(rows.size()), cols);
   for (std::size_t r = 0; r < rows.size(); ++r)
@@ -26,25 +21,11 @@ Eigen::MatrixXd matrix_of(const std::vector<const LayoutRow*>& rows, int cols) {
   return m;
 }
 
-struct RankCond {
-  int rank = 0;
-  double condition = 0;
-};
+using RankCond = RankCondition;
 
 RankCond rank_and_condition(const std::vector<const LayoutRow*>& rows, int cols) {
   if (rows.empty() || cols == 0) return {};
-  Eigen::JacobiSVD<Eigen::MatrixXd> svd(matrix_of(rows, cols));
-  const auto& s = svd.singularValues();
-  if (s.size() == 0 || s(0) == 0) return {};
-  RankCond rc;
-  double smallest = s(0);
-  for (Eigen::Index i = 0; i < s.size(); ++i)
-    if (s(i) > rank_tolerance * s(0)) {
-      ++rc.rank;
-      smallest = s(i);
-    }
-  rc.condition = s(0) / smallest;
-  return rc;
+  return svd_rank(matrix_of(rows, cols));
 }
 
 std::string degrees_text(double deg) {

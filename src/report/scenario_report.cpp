@@ -2,6 +2,7 @@
 #include "core/text.hpp"
 
 #include "report/bar_report.hpp"
+#include "report/probe_sum_report.hpp"
 #include "report/expression_text.hpp"
 #include "report/form_report.hpp"
 #include "report/json_text.hpp"
@@ -256,6 +257,8 @@ toml::table scenario_json(const ScenarioResult& r) {
   root.insert("parts", parts);
   root.insert("bars", bars_json(r));
   root.insert("layouts", layouts_json(r));
+  root.insert("probe_sums", probe_sums_json(r));
+  root.insert("plans", plans_json(r));
   if (!r.shg.empty()) root.insert("shg", shg_json(r));
   if (!r.kerr.empty()) root.insert("magneto_optics", kerr_json(r));
   if (sc.figures.present) root.insert("figures", figures_json(scenario_figures(r, figure_settings(sc.figures))));
@@ -414,7 +417,8 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       }
     }
   }
-  os << write_bars(r, f) << write_layouts(r, f) << write_shg(r, f) << write_kerr(r, f);
+  os << write_bars(r, f) << write_probe_sums(r, f) << write_plans(r, f) << write_layouts(r, f) << write_shg(r, f)
+     << write_kerr(r, f);
   return finish(os.str(), f);
 }
 

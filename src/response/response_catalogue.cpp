@@ -1,5 +1,6 @@
 #include "response/response_catalogue.hpp"
 #include "core/text.hpp"
+#include "response/response_expansion.hpp"
 
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
@@ -167,13 +168,15 @@ void read_roles(const TableReader& r, ResponsePart& p) {
 
 ResponsePart parse_part(const toml::table& t, const std::string& file, const std::string& id, std::size_t index) {
   TableReader r(t, file, "response '" + id + "', part " + std::to_string(index + 1));
-  r.only_keys({"label", "spec", "indices", "harmonic", "drive", "mechanism", "hall", "excluded"}, "(docs/responses.md)");
+  r.only_keys({"label", "spec", "indices", "harmonic", "drive", "mechanism", "hall", "excluded", "summed"},
+              "(docs/responses.md)");
   ResponsePart p;
   p.where = toml_read::at(file, t.source());
   p.label = r.text("label");
   p.spec_text = r.text("spec");
   p.mechanism = r.text("mechanism", false);
   p.hall = r.flag("hall");
+  p.summed = !t.get("summed") || r.flag("summed");
   p.spec = spec_at(r, "spec", p.spec_text);
   read_roles(r, p);
   p.excluded_text = r.text("excluded", false);
@@ -190,12 +193,58 @@ ResponsePart parse_part(const toml::table& t, const std::string& file, const std
   return p;
 }
 
+int small_integer(const TableReader& r, const char* key, int lo, int hi, const std::string& valid) {
+  const toml::node* n = r.table().get(key);
+  if (!n || !n->value<int64_t>() || *n->value<int64_t>() < lo || *n->value<int64_t>() > hi)
+    r.error(key, n ? "must be an integer from " + std::to_string(lo) + " to " + std::to_string(hi) : "is missing", valid);
+  return static_cast<int>(*n->value<int64_t>());
+}
+
+ResponseExpansion parse_expansion(const toml::table& t, const std::string& file, const std::string& id) {
+  TableReader r(t, file, "response '" + id + "', expansion");
+  r.only_keys({"field", "indices", "drive", "harmonic", "axial", "order", "term"}, "(docs/responses.md)");
+  ResponseExpansion e;
+  e.where = toml_read::at(file, t.source());
+  e.field = r.text("field");
+  if (e.field != "B" && e.field != "M") r.error("field", "'" + e.field + "' cannot be expanded", "B or M");
+  e.indices = r.list("indices", true);
+  if (e.indices.size() < 2) r.error("indices", "needs the response and at least one drive", "e.g. [\"E\", \"j\", \"j\"]");
+  for (const auto& x : e.indices)
+    if (x != "E" && x != "j" && x != "h")
+      r.error("indices", "role '" + x + "' cannot start an expansion", "E, j (and h for a Hall vector)");
+  const std::string drive = r.text("drive");
+  if (drive == "current") e.drive = DriveKind::current;
+  else if (drive == "field") e.drive = DriveKind::field;
+  else r.error("drive", "unknown drive kind '" + drive + "'", "current (E = rho·j) or field (j = sigma·E)");
+  e.harmonic = small_integer(r, "harmonic", 1, 6, "the power of the drive, e.g. 2 for a 2ω response");
+  e.axial = r.flag("axial");
+  e.order = small_integer(r, "order", 1, max_expansion_order(e), "the default order of the expansion");
+  if (const toml::node* terms = t.get("term")) {
+    const toml::array* arr = terms->as_array();
+    if (!arr) r.error("term", "must be [[response.expansion.term]] tables");
+    for (std::size_t i = 0; i < arr->size(); ++i) {
+      const toml::table* tt = (*arr)[i].as_table();
+      if (!tt) r.error("term", "must hold tables");
+      TableReader tr(*tt, file, "response '" + id + "', expansion term " + std::to_string(i + 1));
+      tr.only_keys({"order", "type", "mechanism"}, "(docs/responses.md)");
+      ExpansionTerm term;
+      term.order = small_integer(tr, "order", 1, max_expansion_order(e), "an order of the expansion");
+      const std::string type = tr.text("type");
+      if (type != "i" && type != "c") tr.error("type", "'" + type + "' is not a time character", "i or c");
+      term.c_type = type == "c";
+      term.mechanism = tr.text("mechanism");
+      e.terms.push_back(std::move(term));
+    }
+  }
+  return e;
+}
+
 Response parse_response(const toml::table& t, const std::string& file, std::size_t index) {
   const toml::node* idn = t.get("id");
   std::string id = idn && idn->value<std::string>() ? *idn->value<std::string>() : "#" + std::to_string(index + 1);
   TableReader r(t, file, "response '" + id + "'");
   r.only_keys({"id", "name", "aliases", "relation", "response", "drives", "harmonic", "time_reversal", "onsager",
-               "source", "status", "part"},
+               "source", "status", "part", "expansion"},
               "(docs/responses.md)");
   Response out;
   out.where = toml_read::at(file, t.source());
@@ -220,7 +269,13 @@ Response parse_response(const toml::table& t, const std::string& file, std::size
   out.status = r.text("status");
   check_source_tags(r, out.source, out.status);
 
+  if (const toml::node* ex = t.get("expansion")) {
+    if (!ex->as_table()) r.error("expansion", "must be a [response.expansion] table");
+    out.expansion = parse_expansion(*ex->as_table(), file, out.id);
+    out.parts = expansion_parts(*out.expansion, out.expansion->order, out.expansion->where, ErrorKind::bad_file);
+  }
   const toml::node* parts = t.get("part");
+  if (!parts && out.expansion) return out;
   if (!parts) fail(ErrorKind::bad_file, "response '" + out.id + "' has no [[response.part]]", r.at(),
                    "one or more [[response.part]] tables with label and spec");
   const toml::array* arr = parts->as_array();

@@ -16,7 +16,7 @@ namespace ts {
 namespace {
 
 constexpr const char* kTableTag = "tensorsieve-response-table";
-constexpr const char* kTableVersion = "1";
+constexpr const char* kTableVersion = "2";
 constexpr const char* kName = "response table";
 
 std::string families_path(const std::string& catalogue_path) {
@@ -105,11 +105,25 @@ std::string ResponseCatalogue::table_text(std::uint64_t fingerprint) const {
     for (const auto& p : x.parts) {
       w.field("part").field(p.label).field(p.spec_text).field(p.mechanism).field(p.harmonic);
       w.field(drive_kind_name(p.drive)).field(p.hall).field(p.excluded_text).field(position_suffix(p.where, path_));
-      w.field(p.excluded.has_value());
+      w.field(p.excluded.has_value()).field(p.summed).field(p.expansion_order);
       w.end();
       w.list("indices", p.indices);
       write_spec(w, "spec", p.spec);
       if (p.excluded) write_spec(w, "excluded_spec", *p.excluded);
+    }
+    w.field("expansion").field(x.expansion.has_value());
+    if (x.expansion) {
+      const ResponseExpansion& e = *x.expansion;
+      w.field(e.field).field(drive_kind_name(e.drive)).field(e.harmonic).field(e.axial).field(e.order);
+      w.field(position_suffix(e.where, path_)).field(e.terms.size());
+    }
+    w.end();
+    if (x.expansion) {
+      w.list("expansion_indices", x.expansion->indices);
+      for (const auto& t : x.expansion->terms) {
+        w.field("expansion_term").field(t.order).field(t.c_type).field(t.mechanism);
+        w.end();
+      }
     }
   }
   for (const auto& [name, ids] : families_) {
@@ -146,7 +160,7 @@ std::unique_ptr<ResponseCatalogue> ResponseCatalogue::from_table(std::string_vie
     x.drives = r.list("drives");
     x.parts.reserve(static_cast<std::size_t>(parts));
     for (long long k = 0; k < parts; ++k) {
-      auto g = r.record("part", 9);
+      auto g = r.record("part", 11);
       ResponsePart p;
       p.label = unescaped(g[0]);
       p.spec_text = unescaped(g[1]);
@@ -157,10 +171,31 @@ std::unique_ptr<ResponseCatalogue> ResponseCatalogue::from_table(std::string_vie
       p.excluded_text = unescaped(g[6]);
       p.where = position_at(g[7], path);
       const bool excluded = r.flag(g[8]);
+      p.summed = r.flag(g[9]);
+      p.expansion_order = static_cast<int>(r.number(g[10]));
       p.indices = r.list("indices");
       p.spec = read_spec(r, "spec");
       if (excluded) p.excluded = read_spec(r, "excluded_spec");
       x.parts.push_back(std::move(p));
+    }
+    auto e = r.record("expansion");
+    if (e.empty()) fail(ErrorKind::internal, "response table: an empty 'expansion' record");
+    if (r.flag(e[0])) {
+      if (e.size() != 8) fail(ErrorKind::internal, "response table: an 'expansion' record of another length");
+      ResponseExpansion ex;
+      ex.field = unescaped(e[1]);
+      ex.drive = drive_of(e[2]);
+      ex.harmonic = static_cast<int>(r.number(e[3]));
+      ex.axial = r.flag(e[4]);
+      ex.order = static_cast<int>(r.number(e[5]));
+      ex.where = position_at(e[6], path);
+      const long long terms = r.number(e[7]);
+      ex.indices = r.list("expansion_indices");
+      for (long long k = 0; k < terms; ++k) {
+        auto t = r.record("expansion_term", 3);
+        ex.terms.push_back({static_cast<int>(r.number(t[0])), r.flag(t[1]), unescaped(t[2])});
+      }
+      x.expansion = std::move(ex);
     }
     cat->responses_.push_back(std::move(x));
   }

@@ -142,6 +142,11 @@ LayoutSpec parse_layout_option(const std::string& text, const std::string& where
   LayoutSpec l;
   l.where = where;
   l.bad_value = ErrorKind::usage;
+  // A harmonic alone ("2") plans for every mechanism the probes read there.
+  if (text.size() == 1 && text[0] >= '0' && text[0] <= '6') {
+    l.harmonic = text[0] - '0';
+    return l;
+  }
   std::size_t colon = text.find(':');
   l.response = text.substr(0, colon);
   if (colon != std::string::npos) {
@@ -194,6 +199,23 @@ void read_bars(const toml::table& root, const std::string& path, Scenario& sc) {
   }
 }
 
+// [expansion]: response id = order, e.g. harmonic-hall-torques = 3.
+void read_expansion(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("expansion");
+  if (!node) return;
+  auto t = node->as_table();
+  if (!t) fail(ErrorKind::bad_file, "'expansion' must be a table of orders", at(path, node->source()),
+               "[expansion] with lines such as harmonic-hall-torques = 3");
+  sc.expansion_where = at(path, t->source());
+  for (const auto& [key, value] : *t) {
+    auto v = value.value<int64_t>();
+    if (!v || *v < 1 || *v > 6)
+      fail(ErrorKind::bad_file, "the expansion order of '" + std::string(key.str()) + "' must be an integer from 1 to 6",
+           at(path, value.source()), std::string(key.str()) + " = 3");
+    sc.expansion_orders[std::string(key.str())] = static_cast<int>(*v);
+  }
+}
+
 void read_layouts(const toml::table& root, const std::string& path, Scenario& sc) {
   auto node = root.get("layout");
   if (!node) return;
@@ -205,7 +227,7 @@ void read_layouts(const toml::table& root, const std::string& path, Scenario& sc
     check_keys(*t, {"response", "harmonic", "directions", "rosette", "fields"}, path, "[[layout]]");
     LayoutSpec l;
     l.where = at(path, t->source());
-    l.response = get_string(*t, "response", path, true, "a catalogue id such as \"second-order-conductivity\"");
+    l.response = get_string(*t, "response", path, false, "a catalogue id such as \"second-order-conductivity\"");
     if (auto h = t->get("harmonic")) {
       auto v = h->value<int64_t>();
       if (!v || *v < 0 || *v > 6)
@@ -394,7 +416,8 @@ Scenario parse_scenario(const std::string& text, const std::string& path) {
 Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   Scenario sc;
   sc.source = path;
-  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation", "shg", "kerr", "figures"},
+  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation", "shg", "kerr", "figures",
+              "expansion"},
              path, "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
@@ -494,6 +517,7 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   for (const auto& t : sc.tensors) check_at(position_of(root, "tensors", path), [&] { parse_tensor_spec(t); });
   read_shg(root, path, sc);
   read_kerr(root, path, sc);
+  read_expansion(root, path, sc);
   read_figures(root, path, sc);
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");

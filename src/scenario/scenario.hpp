@@ -126,6 +126,11 @@ struct Scenario {
   bool domains = false;
   std::vector<BarSpec> bars;
   std::vector<LayoutSpec> layouts;
+  // Orders of expansion in B or M asked for, by response id (`[expansion]` table,
+  // `--order RESPONSE=N`); responses not named keep their catalogue order.
+  std::map<std::string, int> expansion_orders;
+  std::string expansion_where;
+  ErrorKind expansion_bad_value = ErrorKind::bad_file;
   std::vector<Rational> domain_fractions; // volume fractions of the variants; empty: equal
   std::string fractions_where;            // file:line or option of the fractions
   std::vector<ObservationRequest> observations; // [[observation]] tables

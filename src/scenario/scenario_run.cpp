@@ -1,11 +1,13 @@
 #include "scenario/scenario_run.hpp"
 
 #include "core/error.hpp"
+#include "core/text.hpp"
 #include "lowering/curie.hpp"
 #include "geometry/sample_frame.hpp"
 #include "lowering/glazer_tilts.hpp"
 #include "lowering/structure_file.hpp"
 #include "response/response_catalogue.hpp"
+#include "response/response_expansion.hpp"
 #include "tensor/param_tensor.hpp"
 
 #include <algorithm>
@@ -307,6 +309,25 @@ KerrResult run_kerr(const KerrSpec& spec, const ScenarioResult& res, LatticeKind
 
 } // namespace
 
+std::vector<SumInput> probe_sum_inputs(const ScenarioResult& res, const std::vector<std::string>& only) {
+  const auto& responses = ResponseCatalogue::builtin();
+  std::vector<SumInput> out;
+  auto add = [&](const std::vector<PartForms>& parts, bool background) {
+    for (std::size_t k = 0; k < parts.size(); ++k) {
+      const PartForms& p = parts[k];
+      if (!p.catalogue_part || !is_bar_part(*p.catalogue_part)) continue;
+      if (!background && !only.empty() && std::none_of(only.begin(), only.end(), [&](const std::string& id) {
+            return responses.get(id).id == p.response_id;
+          }))
+        continue;
+      out.push_back({k, background, p.response_id, p.response_name, p.catalogue_part, &p.forms.back(), p.sources});
+    }
+  };
+  add(res.parts, false);
+  add(res.background, true);
+  return out;
+}
+
 ScenarioResult run_scenario(const Scenario& sc) {
   ScenarioResult res;
   res.scenario = sc;
@@ -355,18 +376,52 @@ ScenarioResult run_scenario(const Scenario& sc) {
   for (const auto& asked : sc.responses)
     for (const auto& id : responses.expand(asked))
       if (std::find(ids.begin(), ids.end(), id) == ids.end()) ids.push_back(id);
-  for (const auto& id : ids) {
-    const Response& r = responses.get(id);
-    for (const auto& part : r.parts) {
+  // Expansion orders asked for: each names a response with an expansion.
+  std::map<std::string, int> orders;
+  for (const auto& [asked, order] : sc.expansion_orders) {
+    const Response& r = responses.get(asked);
+    if (!r.expansion) {
+      std::vector<std::string> expandable;
+      for (const auto& x : responses.responses())
+        if (x.expansion) expandable.push_back(x.id);
+      fail(sc.expansion_bad_value, "response '" + r.id + "' has no expansion in B or M to set an order for",
+           sc.expansion_where, "one of " + join(expandable, ", "));
+    }
+    orders[r.id] = order;
+  }
+  auto add_parts = [&](const Response& r, std::vector<PartForms>& into) {
+    auto add = [&](const ResponsePart& part, std::shared_ptr<const ResponsePart> owned) {
       PartForms pf;
       pf.response_id = r.id;
       pf.response_name = r.name;
       pf.part_label = part.label;
       pf.catalogue_part = &part;
+      pf.generated_part = std::move(owned);
       pf.spec = part.spec;
       pf.excluded = part.excluded;
-      res.parts.push_back(std::move(pf));
+      into.push_back(std::move(pf));
+    };
+    auto order = orders.find(r.id);
+    if (order == orders.end() || order->second == r.expansion->order) {
+      for (const auto& part : r.parts) add(part, nullptr);
+      return;
     }
+    for (auto& part : expansion_parts(*r.expansion, order->second, sc.expansion_where, sc.expansion_bad_value)) {
+      auto owned = std::make_shared<const ResponsePart>(std::move(part));
+      add(*owned, owned);
+    }
+    for (const auto& part : r.parts)
+      if (part.expansion_order == 0) add(part, nullptr);
+  };
+  for (const auto& id : ids) add_parts(responses.get(id), res.parts);
+  for (const auto& [id, order] : orders)
+    if (std::find(ids.begin(), ids.end(), id) == ids.end())
+      fail(sc.expansion_bad_value, "an expansion order is given for '" + id + "', which is not among the responses",
+           sc.expansion_where, "add it to responses = [...]");
+  // Every bar also reads the Joule-heating background, asked for or not.
+  if (!sc.bars.empty() || !sc.layouts.empty()) {
+    const Response& joule = responses.get("joule-heating-nernst");
+    if (std::find(ids.begin(), ids.end(), joule.id) == ids.end()) add_parts(joule, res.background);
   }
   for (const auto& t : sc.tensors) {
     PartForms pf;
@@ -404,7 +459,8 @@ ScenarioResult run_scenario(const Scenario& sc) {
   });
   std::optional<std::pair<std::vector<PointGroup>, std::vector<bool>>> without_b, without_bm;
   BarMeasurement general; // the most general planar bar: current and field directions free
-  for (auto& p : res.parts) {
+  const bool magnetic_parent = !res.chain[0].group.is_grey();
+  auto fill_forms = [&](PartForms& p) {
     const std::vector<PointGroup>* groups = nullptr;
     const std::vector<bool>* skipped = nullptr;
     if (any_field_step && (has_role(p, "M") || has_role(p, "B"))) {
@@ -426,7 +482,18 @@ ScenarioResult run_scenario(const Scenario& sc) {
       }
       p.planar.push_back(pr);
     }
-  }
+    // The time-odd quantities this part's last form was derived with.
+    p.sources.magnetisation = magnetic_parent;
+    for (std::size_t i = 0; i < sc.steps.size(); ++i) {
+      const std::size_t step = i + (sc.cut.empty() ? 1 : 2);
+      if (p.field_step_skipped[step]) continue;
+      const LoweringKind k = sc.steps[i].kind;
+      if (k == LoweringKind::magnetic_field) p.sources.field = true;
+      if (k == LoweringKind::moment || k == LoweringKind::magnetic_group) p.sources.magnetisation = true;
+    }
+  };
+  for (auto& p : res.parts) fill_forms(p);
+  for (auto& p : res.background) fill_forms(p);
 
   for (std::size_t i = 1; i < res.chain.size(); ++i)
     for (std::size_t k = 0; k < res.parts.size(); ++k) {
@@ -508,18 +575,25 @@ ScenarioResult run_scenario(const Scenario& sc) {
         continue;
       br.signals.push_back({k, bar_signal(*p.catalogue_part, p.forms.back(), br.measurement)});
     }
+    br.sum = probe_sum(probe_sum_inputs(res, spec.responses), br.measurement);
     res.bars.push_back(std::move(br));
   }
 
   for (const auto& spec : sc.layouts) {
     LayoutResult lr;
     lr.spec = spec;
-    const Response& r = responses.get(spec.response);
     std::vector<LayoutCandidate> candidates =
         layout_candidates(spec.directions, spec.rosette, sf, parent.system, lattice, metric, spec.where);
     if (candidates.empty())
       fail(ErrorKind::bad_geometry, "no bar direction to choose from", spec.where,
            "in-plane directions or rosette angles");
+    PlanGeometry geometry{&sf, parent.system, lattice, metric, Waveform::sine};
+    lr.plan = design_plan(probe_sum_inputs(res, {}), spec.harmonic, candidates, spec.fields, geometry);
+    if (spec.response.empty()) {
+      res.layouts.push_back(std::move(lr));
+      continue;
+    }
+    const Response& r = responses.get(spec.response);
     for (std::size_t k = 0; k < res.parts.size(); ++k) {
       const PartForms& p = res.parts[k];
       if (p.response_id != r.id || !p.catalogue_part || !is_bar_part(*p.catalogue_part)) continue;

@@ -4,6 +4,8 @@
 // variants of the lowering.
 #pragma once
 
+#include "device/measurement_plan.hpp"
+#include "device/probe_sum.hpp"
 #include "geometry/layout_design.hpp"
 #include "geometry/optics_geometry.hpp"
 #include "geometry/optics_kerr.hpp"
@@ -13,6 +15,7 @@
 #include "scenario/scenario.hpp"
 #include "tensor/allowed_form.hpp"
 
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -36,6 +39,9 @@ const char* planar_reading_text(PlanarReading r);
 struct PartForms {
   std::string response_id, response_name, part_label;
   const ResponsePart* catalogue_part = nullptr; // null for an extra tensor
+  // A part generated for an expansion order the scenario asked for is owned here
+  // (catalogue_part points into it), so copies of the result stay valid.
+  std::shared_ptr<const ResponsePart> generated_part;
   TensorSpec spec;
   std::optional<TensorSpec> excluded; // a piece the response does not see (counts subtract it)
   std::vector<AllowedForm> forms;     // one per chain step, in the sample frame
@@ -44,6 +50,7 @@ struct PartForms {
   // field (or moment): the field enters through its powers, not twice.
   std::vector<bool> field_step_skipped; // per step: this step's field was not applied to this part
   std::vector<PlanarReading> planar;    // per step, for a general planar bar (current and field free)
+  TimeOddSources sources;               // what made a c-type form allowed at the last step
 };
 
 // The signals of one bar: one entry per bar part of the requested responses.
@@ -55,12 +62,14 @@ struct BarPartSignal {
 struct BarResult {
   BarMeasurement measurement;
   std::vector<BarPartSignal> signals;
+  ProbeSum sum; // every mechanism together, per probe and harmonic, with the Joule background
 };
 
 struct LayoutResult {
   LayoutSpec spec;
+  MeasurementPlan plan;           // every mechanism the probes read at the harmonic, together
   std::vector<std::size_t> parts; // index into parts, one per design
-  std::vector<LayoutDesign> designs;
+  std::vector<LayoutDesign> designs; // each part of spec.response on its own
 };
 
 // A relation C = factor·anchor of the previous step that a lowering broke.
@@ -130,6 +139,9 @@ struct ScenarioResult {
   std::array<std::string, 3> frame_labels;
   std::vector<ChainStep> chain;
   std::vector<PartForms> parts;
+  // Mechanisms a bar reads whether asked for or not (the Joule-heating background),
+  // evaluated like parts when the scenario has bars or layouts and did not list them.
+  std::vector<PartForms> background;
   std::vector<StepChange> changes;
   std::vector<DomainReport> domains;
   std::vector<BarResult> bars;
@@ -139,6 +151,11 @@ struct ScenarioResult {
 };
 
 ScenarioResult run_scenario(const Scenario& scenario);
+
+// The mechanisms a bar's probes sum: the scenario's bar parts (those of the
+// responses in `only`, when given) and the background parts, each with its form
+// at the last step. The result must outlive the inputs' pointers.
+std::vector<SumInput> probe_sum_inputs(const ScenarioResult& res, const std::vector<std::string>& only);
 
 // HM symbol of a tabulated setting whose axes are the sample frame's, else empty.
 std::string sample_symbol(const PointGroup& g, const Identification& id, const Frame& frame);
