@@ -2,6 +2,7 @@
 
 #include "core/text.hpp"
 #include "report/expression_text.hpp"
+#include "report/report_prose.hpp"
 #include "report/series_text.hpp"
 
 #include <algorithm>
@@ -11,13 +12,8 @@ namespace ts {
 
 namespace {
 
-TextStyle style_of(Format f) { return f == Format::latex ? TextStyle::latex : TextStyle::plain; }
-std::string prose(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
-std::string math(const std::string& s, Format f) {
-  return f == Format::latex ? "$" + s + "$" : f == Format::markdown ? "`" + s + "`" : s;
-}
-std::string line(Format f) { return f == Format::latex ? "\\\\\n" : "\n"; }
-std::string bullet(Format f) { return f == Format::markdown ? "- " : (f == Format::latex ? "" : "  "); }
+using namespace prose_text;
+
 std::string heading(const std::string& s, Format f, int level) { return section_heading(s, f, level); }
 std::string harmonic_name(int k) { return k == 0 ? "DC" : std::to_string(k) + "ω"; }
 std::string plural(std::size_t n, const std::string& one, const std::string& many) {
@@ -31,7 +27,7 @@ const AllowedForm& form_of(const ScenarioResult& r, const SumMechanism& m) {
 std::string lock_in_text(const SumTerm& t, int n, Format f) {
   auto one = [&](const char* name, const Surd& s) {
     std::string c = s == Surd(Rational(1)) ? "" : s == Surd(Rational(-1)) ? "-" : surd_text(s, style_of(f)) + " ";
-    return std::string(name) + " = " + c + "R" + std::to_string(n);
+    return std::string(name) + " = " + c + (f == Format::latex ? "R_{" + std::to_string(n) + "}" : "R_" + std::to_string(n));
   };
   if (t.quadrature == Quadrature::x) return math(one("X", t.x), f);
   if (t.quadrature == Quadrature::y) return math(one("Y", t.y), f);
@@ -110,11 +106,13 @@ std::string write_probe_sums(const ScenarioResult& r, Format f) {
       for (std::size_t i = 0; i < rd.terms.size(); ++i) {
         const SumTerm& t = rd.terms[i];
         const SumMechanism& mech = s.mechanisms[t.mechanism];
-        rows.push_back({std::to_string(t.mechanism + 1), prose(mech.label, f), "I^" + std::to_string(mech.current_order),
+        const std::string power = std::to_string(mech.current_order);
+        rows.push_back({std::to_string(t.mechanism + 1), prose(mech.label, f),
+                        f == Format::latex ? math("I^{" + power + "}", f) : "I^" + power,
                         parity_text(mech.field_parity), parity_text(mech.magnetisation_parity), type_text(mech),
                         lock_in_text(t, mech.current_order, f) +
                             (rd.with_dc ? "; DC " + math((t.dc == Surd(Rational(1)) ? std::string() : surd_text(t.dc, style_of(f)) + " ") +
-                                                             "R" + std::to_string(mech.current_order), f)
+                                                             (f == Format::latex ? "R_{" + power + "}" : "R_" + power), f)
                                         : std::string()),
                         signal_text(r, mech, t, f)});
       }
@@ -155,8 +153,6 @@ std::string write_plans(const ScenarioResult& r, Format f) {
          << ": nothing to separate" << line(f) << "\n";
       continue;
     }
-    std::vector<std::string> names;
-    for (const auto& m : p.mechanisms) names.push_back(m.label);
     os << bullet(f) << prose("unknowns: " + plural(p.columns.size(), "parameter", "parameters") + " of " +
                                  plural(p.mechanisms.size(), "mechanism", "mechanisms") + ", " +
                                  std::to_string(p.columns.size() - p.unseen.size()) + " of them seen by some reading",
