@@ -138,6 +138,12 @@ TEST_CASE("a part no bar reads says so in one line", "[wording][bar]") {
                   "is a spin polarisation (index role S), not the electric field or current that two contacts of a "
                   "bar read"));
 
+  // Many such responses (--response all): one line naming each once.
+  CliResult all = run_cli({"sample", "m-3m", "--cut", "(001)", "--response", "all", "--bar", "rotating:none"});
+  REQUIRE(all.exit_code == 0);
+  CHECK(has(bars_of(all.out), "gives each reason): current-induced-spin-polarization; spin-hall; linear-magnetoelectric; "
+                              "magneto-optic-kerr;"));
+
   CliResult tensor = run_cli({"sample", "m-3m", "--cut", "(001)", "--tensor", "T_ab: polar", "--bar", "rotating:none"});
   REQUIRE(tensor.exit_code == 0);
   CHECK(has(bars_of(tensor.out), "tensor T_ab: polar, time-even\n  not a voltage a bar's probes read: a tensor given by its spec "

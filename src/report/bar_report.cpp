@@ -237,8 +237,12 @@ void write_unread(std::ostream& os, const ScenarioResult& r, const BarResult& b,
   }
   constexpr std::size_t kShownLines = 4;
   if (groups.size() > kShownLines) {
-    std::vector<std::string> ids;
-    for (const auto& g : groups) ids.push_back(g.title);
+    std::vector<std::string> ids; // each response once, by its id
+    for (const auto& u : b.unread) {
+      const PartForms& p = r.parts[u.part];
+      const std::string id = p.response_id.empty() ? part_title(p) : p.response_id;
+      if (std::find(ids.begin(), ids.end(), id) == ids.end()) ids.push_back(id);
+    }
     os << bullet(f)
        << prose("not voltages a bar's probes read (their response is not the electric field or current between two "
                 "contacts; --format json gives each reason): " + join(ids, "; "),
