@@ -95,7 +95,7 @@ TEST_CASE("domains in a field: the CLI prints the field terms and checks the fra
   const std::string film = (src / "examples" / "strained-film.toml").string();
   CliResult text = run_cli({"run", film});
   REQUIRE(text.exit_code == 0);
-  CHECK(text.out.find("average over equal populations: ⟨h_x⟩ = 1/2*hB_xx + 1/2*hB_yy; all others vanish") != std::string::npos);
+  CHECK(text.out.find("average over equal populations in the field: ⟨h_x⟩ = 1/2*hB_xx + 1/2*hB_yy; all others vanish") != std::string::npos);
   CliResult json = run_cli({"run", film, "--domain-fractions", "0.75,0.25", "-f", "json"});
   REQUIRE(json.exit_code == 0);
   JsonValue v = parse_json(json.out);

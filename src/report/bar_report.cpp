@@ -37,8 +37,16 @@ std::string function_text(const FourierTerm& t, Format f) {
   return f == Format::latex ? "$" + angle_function_text(t, true) + "$" : angle_function_text(t, false);
 }
 
-std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, Format f) {
-  const std::string body = fourier_series_text(terms, form, style_of(f));
+// The field angles of a part expanded in the magnetisation are the magnetisation's
+// (φ_M, θ_M). JSON keeps phiB and thetaB (an observation's signal names them so)
+// and gives the role beside them.
+std::string with_field_role(const std::string& s, const std::string& role) {
+  return role == "M" ? as_magnetisation_angles(s) : s;
+}
+
+std::string series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, Format f,
+                        const std::string& role = "") {
+  const std::string body = with_field_role(fourier_series_text(terms, form, style_of(f)), role);
   if (f == Format::markdown) return "`" + body + "`";
   return f == Format::latex ? "$" + body + "$" : body;
 }
@@ -80,10 +88,7 @@ std::string coefficient_text(const PartSignal& ps, const ProbeSignal& p, const A
   return pre + geometry + "*" + (several ? "(" + series + ")" : series);
 }
 
-std::string part_title(const ScenarioResult& r, std::size_t k) {
-  const PartForms& p = r.parts[k];
-  return p.response_name + " [" + p.response_id + "]: " + p.part_label;
-}
+std::string part_title(const ScenarioResult& r, std::size_t k) { return part_title(r.parts[k]); }
 
 std::string order_text(const PartSignal& ps) {
   std::string s = "order I^" + std::to_string(ps.current_order);
@@ -151,7 +156,7 @@ std::string separation_text(const ScenarioResult& r, const BarResult& b, Probe p
     std::string name = r.parts[s.part].response_id + " / " + r.parts[s.part].part_label;
     names.push_back(name);
     for (const auto& t : p.terms) {
-      auto& v = who[function_text(t, f)];
+      auto& v = who[with_field_role(function_text(t, f), s.signal.field_role)];
       if (v.empty() || v.back() != name) v.push_back(name);
     }
   }
@@ -162,7 +167,112 @@ std::string separation_text(const ScenarioResult& r, const BarResult& b, Probe p
   return grid({"angle function", "parts that show it"}, rows, f);
 }
 
+// "magnetisation: in plane, φ_M from sample x" when every part of the bar that meets
+// the field direction is an expansion in M; both words when B and M parts share it.
+std::string field_heading(const BarResult& b) {
+  const BarMeasurement& m = b.measurement;
+  const std::string label = m.field_label.empty() ? field_geometry_name(m.field) : m.field_label;
+  bool in_b = false, in_m = false;
+  for (const auto& s : b.signals)
+    if (s.signal.field_order > 0) (s.signal.field_role == "M" ? in_m : in_b) = true;
+  if (m.field == FieldGeometry::none || !in_m) return "field: " + label;
+  if (!in_b) return "magnetisation: " + with_field_role(label, "M");
+  const bool angles = label.find("φ_B") != std::string::npos || label.find("θ_B") != std::string::npos;
+  return "field: " + label + (angles ? " (the magnetisation of the parts in M: the same direction, φ_M = φ_B, θ_M = θ_B)"
+                                     : " (also the magnetisation direction of the parts in M)");
+}
+
+// A part's reading averaged over the domain variants, as a few lines under the
+// single-domain reading.
+void write_domain_averaged(std::ostream& os, const ScenarioResult& r, const BarPartSignal& s, Format f) {
+  std::string populations = "equal populations";
+  for (const auto& d : r.domains)
+    if (d.part == s.part && !d.fractions.empty()) {
+      std::vector<std::string> w;
+      for (const auto& x : d.fractions) w.push_back(x.str());
+      populations = "volume fractions " + join(w, ", ");
+    }
+  if (std::none_of(s.domain_averaged.begin(), s.domain_averaged.end(),
+                   [](const DomainAveragedSignal& a) { return a.signal.reads(); })) {
+    if (!s.domain_averaged.empty())
+      os << bullet(f)
+         << prose("averaged over the domain variants (" + populations + "): both probes read zero" +
+                      (s.domain_averaged.size() > 1 ? ", at zero field and linear in each applied field" : ""),
+                  f)
+         << line(f);
+    return;
+  }
+  for (const auto& a : s.domain_averaged) {
+    const std::string role = a.signal.field_role;
+    const std::string which = !a.field_label.empty() ? ", the part linear in the " + a.field_label + ", per unit field"
+                              : s.domain_averaged.size() > 1 ? ", at zero field"
+                                                             : "";
+    os << bullet(f) << prose("averaged over the domain variants (" + populations + ")" + which, f);
+    if (!a.signal.reads()) {
+      os << ": both probes read zero" << line(f);
+      continue;
+    }
+    os << ":" << line(f);
+    for (const ProbeSignal* p : {&a.signal.longitudinal, &a.signal.transverse})
+      os << sub_bullet(f)
+         << (f == Format::latex ? (p->probe == Probe::longitudinal ? "$\\langle S_\\parallel\\rangle$" : "$\\langle S_\\perp\\rangle$")
+                                : (p->probe == Probe::longitudinal ? "⟨S_∥⟩" : "⟨S_⊥⟩"))
+         << " = "
+         << series_text(p->terms, a.names, f, role) << line(f);
+  }
+}
+
+// Requested parts that no probe reads, one line per response (a summary line when many).
+void write_unread(std::ostream& os, const ScenarioResult& r, const BarResult& b, Format f) {
+  struct Group {
+    std::string title, reason;
+    std::size_t parts = 0;
+  };
+  std::vector<Group> groups;
+  for (const auto& u : b.unread) {
+    const PartForms& p = r.parts[u.part];
+    const std::string title = p.response_id.empty() ? part_title(p) : p.response_name + " [" + p.response_id + "]";
+    if (!groups.empty() && groups.back().title == title && groups.back().reason == u.reason) ++groups.back().parts;
+    else groups.push_back({title, u.reason, 1});
+  }
+  constexpr std::size_t kShownLines = 4;
+  if (groups.size() > kShownLines) {
+    std::vector<std::string> ids; // each response once, by its id
+    for (const auto& u : b.unread) {
+      const PartForms& p = r.parts[u.part];
+      const std::string id = p.response_id.empty() ? part_title(p) : p.response_id;
+      if (std::find(ids.begin(), ids.end(), id) == ids.end()) ids.push_back(id);
+    }
+    os << bullet(f)
+       << prose("not voltages a bar's probes read (their response is not the electric field or current between two "
+                "contacts; --format json gives each reason): " + join(ids, "; "),
+                f)
+       << line(f) << "\n";
+    return;
+  }
+  for (const auto& g : groups)
+    os << (f == Format::markdown ? "**" : "") << prose(g.title, f) << (f == Format::markdown ? "**" : "") << line(f)
+       << bullet(f)
+       << prose((g.parts > 1 ? "its " + std::to_string(g.parts) + " parts are not voltages" : std::string("not a voltage")) +
+                    " a bar's probes read: " + g.reason,
+                f)
+       << line(f) << "\n";
+}
+
 } // namespace
+
+bool field_induced_hall(const PartForms& p) {
+  return p.induced_by_field && p.catalogue_part && p.catalogue_part->hall && p.catalogue_part->harmonic == 1 &&
+         p.spec.time_odd;
+}
+
+std::string part_title(const PartForms& p) {
+  if (p.response_id.empty()) return "tensor " + p.spec.canonical_text();
+  if (field_induced_hall(p))
+    return "Hall effect induced by the applied field (ordinary or in-plane Hall, not spontaneous: no magnetic order of "
+           "the scenario allows it) [" + p.response_id + "]: " + p.part_label;
+  return p.response_name + " [" + p.response_id + "]: " + p.part_label;
+}
 
 std::string write_bars(const ScenarioResult& r, Format f) {
   if (r.bars.empty()) return {};
@@ -180,9 +290,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
      << line(f) << "\n";
   for (const auto& b : r.bars) {
     const BarMeasurement& m = b.measurement;
-    os << heading(m.name + ": current " + m.current_label + "; field: " +
-                      (m.field_label.empty() ? field_geometry_name(m.field) : m.field_label),
-                  f, 3);
+    os << heading(m.name + ": current " + m.current_label + "; " + field_heading(b), f, 3);
     os << bullet(f) << prose("drive: " + waveform_text(m, f), f) << line(f);
     if (m.current_rms && m.length && m.width && m.thickness) {
       char buf[160];
@@ -210,26 +318,29 @@ std::string write_bars(const ScenarioResult& r, Format f) {
         os << bullet(f) << "forbidden in the sample's group: both probes read zero" << line(f) << "\n";
         continue;
       }
+      const std::string field_word = ps.field_role == "M" ? "magnetisation" : "field";
       if (ps.needs_field) {
-        os << bullet(f) << "needs a field or magnetisation direction (this bar has none)" << line(f) << "\n";
+        os << bullet(f) << "needs a " << field_word << " direction (this bar has none)" << line(f) << "\n";
         continue;
       }
       if (!ps.reads()) {
         os << bullet(f) << "allowed, not readable in this bar: both probes read zero for every parameter value "
-           << "(the allowed components lie out of the plane or need another field direction)" << line(f) << "\n";
+           << "(the allowed components lie out of the plane or need another " << field_word << " direction)" << line(f);
+        write_domain_averaged(os, r, s, f);
+        os << "\n";
         continue;
       }
       os << bullet(f) << "lock-in readings: " << readings_text(ps, f) << line(f);
       for (const ProbeSignal* p : {&ps.longitudinal, &ps.transverse}) {
         std::string name = p->probe == Probe::longitudinal ? "longitudinal S_∥" : "transverse S_⊥";
-        os << bullet(f) << prose(name, f) << " = " << series_text(p->terms, form, f) << line(f);
+        os << bullet(f) << prose(name, f) << " = " << series_text(p->terms, form, f, ps.field_role) << line(f);
         if (p->reads()) {
           std::string rn = std::string("R_") + std::to_string(ps.current_order) +
                            (p->probe == Probe::longitudinal ? "(∥)" : "(⊥)");
           std::string pre = std::string(ps.part->drive == DriveKind::field ? "-rho0^" + std::to_string(ps.current_order + 1) + " " : "") +
                             spaced(geometry_factor(ps, p->probe, TextStyle::plain));
           os << sub_bullet(f) << prose(rn, f) << " = "
-             << (f == Format::latex ? "$" + coefficient_text(ps, *p, form, TextStyle::latex) + "$"
+             << (f == Format::latex ? "$" + with_field_role(coefficient_text(ps, *p, form, TextStyle::latex), ps.field_role) + "$"
                                     : pre + " × S" + (p->probe == Probe::longitudinal ? "_∥" : "_⊥"))
              << line(f);
         }
@@ -247,13 +358,15 @@ std::string write_bars(const ScenarioResult& r, Format f) {
       }
       if (ps.hall_split && ps.transverse.reads()) {
         os << bullet(f) << prose("Hall test, S_⊥ = S_∥'/" + std::to_string(ps.direction_order() + 1) + " + H: gradient part ", f)
-           << series_text(ps.transverse.gradient_terms, form, f) << "; dissipationless Hall part H = "
-           << series_text(ps.transverse.hall_terms, form, f)
+           << series_text(ps.transverse.gradient_terms, form, f, ps.field_role) << "; dissipationless Hall part H = "
+           << series_text(ps.transverse.hall_terms, form, f, ps.field_role)
            << (ps.transverse.hall_terms.empty() ? " (the transverse signal follows from the longitudinal one)" : "")
            << line(f);
       }
+      write_domain_averaged(os, r, s, f);
       os << "\n";
     }
+    write_unread(os, r, b, f);
     std::set<int> orders;
     for (const auto& s : b.signals) orders.insert(s.signal.current_order);
     for (int n : orders)
@@ -315,7 +428,11 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
         }
         ++letter;
       }
-      os << grid({"bar", "current along", "angle from x", "probe", "field", prose("reads (per j^n, sample frame)", f)}, rows, f)
+      const auto& ix = pf.catalogue_part->indices;
+      const bool in_m = std::find(ix.begin() + 1, ix.end(), "M") != ix.end();
+      os << grid({"bar", "current along", "angle from x", "probe", in_m ? "magnetisation" : "field",
+                  prose("reads (per j^n, sample frame)", f)},
+                 rows, f)
          << "\n";
     }
   }
@@ -337,7 +454,14 @@ toml::array bars_json(const ScenarioResult& r) {
                     {"field_role", ps.field_role},
                     {"drive", drive_kind_name(ps.part->drive)},
                     {"needs_field", ps.needs_field},
+                    {"field_angles_of", ps.field_role == "M" ? "magnetisation" : "field"},
                     {"reads", ps.reads()}};
+      toml::array averaged;
+      for (const auto& a : s.domain_averaged)
+        averaged.push_back(toml::table{{"field", a.field_label},
+                                       {"longitudinal", fourier_terms_json(a.signal.longitudinal.terms, a.names)},
+                                       {"transverse", fourier_terms_json(a.signal.transverse.terms, a.names)}});
+      if (!s.domain_averaged.empty()) t.insert("domain_averaged", averaged);
       toml::array harm;
       for (const auto& h : ps.harmonics)
         harm.push_back(toml::table{{"harmonic", h.harmonic},
@@ -363,7 +487,13 @@ toml::array bars_json(const ScenarioResult& r) {
       sigs.push_back(t);
     }
     const BarMeasurement& m = b.measurement;
+    toml::array unread;
+    for (const auto& u : b.unread)
+      unread.push_back(toml::table{{"response", r.parts[u.part].response_id},
+                                   {"part", r.parts[u.part].part_label},
+                                   {"reason", u.reason}});
     out.push_back(toml::table{{"name", m.name},
+                              {"not_read", unread},
                               {"current", m.current_label},
                               {"field", field_geometry_name(m.field)},
                               {"field_label", m.field_label},

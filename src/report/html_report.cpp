@@ -4,6 +4,7 @@
 #include "figure/figure_data.hpp"
 #include "figure/figure_draw.hpp"
 #include "geometry/optics_setup_text.hpp"
+#include "report/bar_report.hpp"
 #include "report/series_text.hpp"
 #include "report/html_math.hpp"
 
@@ -54,8 +55,7 @@ void forms_section(const ScenarioResult& r, std::ostream& os) {
   os << "<h2>Allowed forms (sample frame, last step)</h2>\n";
   for (const auto& p : r.parts) {
     const AllowedForm& form = p.forms.back();
-    os << "<h3>" << esc(p.response_name) << " <span class=\"dim\">[" << esc(p.response_id) << "]</span>: "
-       << esc(p.part_label) << "</h3>\n<p class=\"dim\">" << esc(p.spec.canonical_text()) << "; independent components by step: ";
+    os << "<h3>" << esc(part_title(p)) << "</h3>\n<p class=\"dim\">" << esc(p.spec.canonical_text()) << "; independent components by step: ";
     for (std::size_t k = 0; k < p.counts.size(); ++k) os << (k ? ", " : "") << p.counts[k];
     os << "</p>\n";
     if (form.independent() == 0) {
@@ -92,7 +92,8 @@ void bars_section(const ScenarioResult& r, std::ostream& os) {
         if (ps.needs_field) os << "<td class=\"dim\">needs a field</td>";
         else if (!p->reads()) os << "<td>0</td>";
         else {
-          os << "<td>" << formula(fourier_series_text(p->terms, form, TextStyle::plain)) << "</td>";
+          const std::string series = fourier_series_text(p->terms, form, TextStyle::plain);
+          os << "<td>" << formula(ps.field_role == "M" ? as_magnetisation_angles(series) : series) << "</td>";
         }
       }
       os << "</tr>\n";

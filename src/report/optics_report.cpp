@@ -1,5 +1,6 @@
 #include "report/optics_report.hpp"
 
+#include "core/text.hpp"
 #include "geometry/optics_setup_text.hpp"
 #include "report/series_text.hpp"
 
@@ -25,6 +26,26 @@ std::string harmonics_text(const std::vector<Harmonic>& hs, Format f) {
   std::string s;
   for (const auto& h : hs) s += (s.empty() ? "" : ", ") + math(harmonic_text(h, f == Format::latex), f);
   return s;
+}
+
+// What the final group allows for the moment, in words: "along sample x ∥ [100]",
+// "in the plane of sample x and y ([100], [010])", or its components.
+std::string allowed_moment_text(const AllowedForm& mf, const std::array<std::string, 3>& axes) {
+  static const char* const n[3] = {"x", "y", "z"};
+  if (mf.independent() == 0) return "nowhere: the group allows no net moment";
+  if (mf.independent() == 3) return "in any direction";
+  std::vector<int> nonzero;
+  for (int i = 0; i < 3; ++i)
+    if (!mf.is_zero(i)) nonzero.push_back(i);
+  if (mf.independent() == 1 && nonzero.size() == 1)
+    return std::string("along sample ") + n[nonzero[0]] + " ∥ " + axes[nonzero[0]];
+  if (mf.independent() == 2 && nonzero.size() == 2)
+    return std::string("in the plane of sample ") + n[nonzero[0]] + " and " + n[nonzero[1]] + " (" + axes[nonzero[0]] +
+           ", " + axes[nonzero[1]] + ")";
+  std::vector<std::string> parts;
+  for (int i = 0; i < 3; ++i)
+    parts.push_back(mf.component_name(i) + " = " + combination_text(mf, mf.value(i), TextStyle::plain));
+  return "as " + join(parts, ", ");
 }
 
 std::string source_title(const ScenarioResult& r, const ShgSource& s) {
@@ -132,6 +153,17 @@ std::string write_kerr(const ScenarioResult& r, Format f) {
   std::ostringstream os;
   for (const auto& k : r.kerr) {
     os << heading("Magneto-optics: " + k.name, f);
+    if (k.magnetisation_outside_group)
+      os << bullet(f)
+         << prose("warning: the magnetisation " + as_magnetisation_angles(k.magnetisation_label) +
+                      " is not one the final group " + r.chain.back().readable_symbol +
+                      " allows: there the moment (an axial time-odd vector) points " +
+                      allowed_moment_text(*k.moment_form, r.frame_labels) +
+                      ". The Kerr geometries below are those of the final group; the quadratic terms are evaluated for "
+                      "the direction asked for all the same. For a magnetisation along that direction, put it into the "
+                      "chain (a moment or magnetic-field step along it).",
+                  f)
+         << line(f) << "\n";
     if (k.g_part) {
       const AllowedForm& g = r.parts[*k.g_part].forms.back();
       os << prose("Kerr geometries from the gyration vector g in the final group (plane of incidence at the azimuth "
@@ -153,10 +185,11 @@ std::string write_kerr(const ScenarioResult& r, Format f) {
       const AllowedForm& q = r.parts[*k.q_part].forms.back();
       os << prose("Quadratic (Voigt-type) terms: the change of eps_ij is q_ijkl m_k m_l for the magnetisation (or the "
                       "antiferromagnetic order vector) " +
-                      k.magnetisation_label + "; the first row is the linear birefringence seen at normal incidence:", f)
+                      as_magnetisation_angles(k.magnetisation_label) + "; the first row is the linear birefringence seen at normal incidence:", f)
          << "\n\n";
       std::vector<std::vector<std::string>> rows;
-      for (const auto& v : k.voigt) rows.push_back({delta_eps_name(v.indices, f), terms_text(v.terms, q, f)});
+      for (const auto& v : k.voigt)
+        rows.push_back({delta_eps_name(v.indices, f), as_magnetisation_angles(terms_text(v.terms, q, f))});
       os << grid({"component", "value"}, rows, f) << "\n";
     }
   }
@@ -166,7 +199,11 @@ std::string write_kerr(const ScenarioResult& r, Format f) {
 toml::array kerr_json(const ScenarioResult& r) {
   toml::array out;
   for (const auto& k : r.kerr) {
-    toml::table t{{"name", k.name}, {"magnetisation", k.magnetisation_label}};
+    toml::table t{{"name", k.name},
+                  {"magnetisation", k.magnetisation_label},
+                  {"field_angles_of", "magnetisation"},
+                  {"magnetisation_outside_group", k.magnetisation_outside_group}};
+    if (k.moment_form) t.insert("group_allows_moment", allowed_moment_text(*k.moment_form, r.frame_labels));
     if (k.g_part) {
       toml::array geo;
       for (const auto& kr : k.kerr)

@@ -201,7 +201,7 @@ toml::table scenario_json(const ScenarioResult& r) {
     for (int c : p.counts) counts.push_back(static_cast<std::int64_t>(c));
     toml::table final_form;
     FrameContext fc{r.frame_labels, false};
-    form_json(p.forms.back(), context_of(r.chain.back(), lattice), fc, final_form);
+    form_json(p.forms.back(), context_of(p.evaluated_in ? *p.evaluated_in : r.chain.back(), lattice), fc, final_form);
     toml::array changes;
     for (const auto& ch : r.changes) {
       if (ch.part != k) continue;
@@ -219,6 +219,7 @@ toml::table scenario_json(const ScenarioResult& r) {
     for (bool v : p.field_step_skipped) skipped.push_back(v);
     toml::table entry{{"planar_bar_by_step", planar},
                       {"field_step_not_applied", skipped},
+                      {"induced_by_applied_field", p.induced_by_field},
                       {"response", p.response_id},
                       {"response_name", p.response_name},
                       {"part", p.part_label},
@@ -310,7 +311,8 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     os << section_heading("summary: what the last step (" + r.chain[last].label + ") switched on", f);
     std::vector<std::string> on, allowed, forbidden;
     for (const auto& p : r.parts) {
-      const std::string name = (p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label);
+      const std::string name = (p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label) +
+                               (field_induced_hall(p) ? ", induced by the applied field, not spontaneous" : "");
       const int before = p.counts[last - 1], after = p.counts[last];
       if (before == 0 && after > 0) on.push_back(name + " (" + std::to_string(after) + " independent)");
       else (after > 0 ? allowed : forbidden).push_back(name);
@@ -327,9 +329,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
 
   for (std::size_t k = 0; k < r.parts.size(); ++k) {
     const auto& p = r.parts[k];
-    os << section_heading(p.response_id.empty() ? "tensor " + p.spec.canonical_text()
-                                        : p.response_name + " [" + p.response_id + "]: " + p.part_label,
-                  f);
+    os << section_heading(part_title(p), f);
     std::vector<std::vector<std::string>> counts;
     for (std::size_t i = 0; i < r.chain.size(); ++i) {
       int n = p.counts[i];
@@ -343,7 +343,8 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     if (std::find(p.field_step_skipped.begin(), p.field_step_skipped.end(), true) != p.field_step_skipped.end())
       os << (f == Format::markdown ? "- " : "  ") << "this part is an expansion in the field (or magnetisation): "
          << "the field enters through its powers and the bar's field direction, so the steps that apply it are not "
-         << "applied again here" << (f == Format::latex ? "\\" : "") << "\n";
+         << "applied again here: the form below is that of " << code(group_name(p.evaluated_in ? *p.evaluated_in : r.chain.back()), f)
+         << ", the group without them" << (f == Format::latex ? "\\" : "") << "\n";
     if (std::find(p.planar.begin(), p.planar.end(), PlanarReading::not_readable) != p.planar.end())
       os << (f == Format::markdown ? "- " : "  ") << "\"not readable in a planar bar\": the allowed components give zero "
          << "on both probes for every in-plane current direction and every field direction"
@@ -365,7 +366,9 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     if (p.excluded)
       os << (f == Format::latex ? "% " : "  ") << "note: the response does not see the " << p.excluded->name << " piece ("
          << p.excluded->description() << ") of this tensor; the counts above leave it out, the form below includes it\n\n";
-    os << write_form(p.forms.back(), context_of(r.chain.back(), lattice), fc, f, View::automatic) << "\n";
+    os << write_form(p.forms.back(), context_of(p.evaluated_in ? *p.evaluated_in : r.chain.back(), lattice), fc, f,
+                     View::automatic)
+       << "\n";
     for (const auto& d : r.domains) {
       if (d.part != k) continue;
       const std::string& dg = d.domain_symbol;
@@ -384,22 +387,9 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
         return text.substr(0, cut) + " ... (" + std::to_string(text.size() - cut) +
                " more characters; --format json lists every component)";
       };
-      std::vector<std::vector<std::string>> vrows;
+      // With applied fields, what the variants show in the field comes first: the
+      // zero-field rows (often all zero) would otherwise read as the verdict.
       const std::size_t shown = std::min(d.analysis.variants.size(), kShownVariants);
-      for (std::size_t v = 0; v < shown; ++v)
-        vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                         capped(v ? tensor_components_text(d.analysis.variants[v].tensor, d.form, f, nullptr,
-                                                           &d.analysis.variants[0].tensor, v + 1)
-                                  : grouped_form_text(d.analysis.variants[0].tensor, d.form, f, false))});
-      os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i",
-                  "components of variant i in the parameters of variant 1 (from variant 2 on: only what differs)"},
-                 vrows, f);
-      if (shown < d.analysis.variants.size())
-        os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
-           << " are not printed here; --format json lists them all\n";
-      os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
-         << (f == Format::markdown ? "**" : "") << average_text(grouped_form_relations(d.analysis.average, d.form, f, true), f)
-         << "\n";
       for (const auto& t : d.in_field) {
         const std::string field_symbol = t.expansion.name.substr(p.spec.name.size());
         os << section_heading("every variant in the lab-frame " + t.field.label + ": the part linear in the field, per unit " +
@@ -411,10 +401,27 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
           frows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
                            capped(tensor_components_text(t.variants[v], d.form, f, &t.form))});
         os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, frows, f);
-        os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << ":"
+        os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << " in the field:"
            << (f == Format::markdown ? "**" : "")
            << average_text(grouped_form_relations(t.average, d.form, f, true, &t.form), f) << "\n";
       }
+      const bool in_field = !d.in_field.empty();
+      if (in_field) os << section_heading("every variant at zero field (the spontaneous steps alone)", f, 3);
+      std::vector<std::vector<std::string>> vrows;
+      for (std::size_t v = 0; v < shown; ++v)
+        vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
+                         capped(v ? tensor_components_text(d.analysis.variants[v].tensor, d.form, f, nullptr,
+                                                           &d.analysis.variants[0].tensor, v + 1)
+                                  : grouped_form_text(d.analysis.variants[0].tensor, d.form, f, false))});
+      os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i",
+                  "components of variant i in the parameters of variant 1 (from variant 2 on: only what differs)"},
+                 vrows, f);
+      if (shown < d.analysis.variants.size())
+        os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
+           << " are not printed here; --format json lists them all\n";
+      os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d)
+         << (in_field ? " at zero field:" : ":") << (f == Format::markdown ? "**" : "")
+         << average_text(grouped_form_relations(d.analysis.average, d.form, f, true), f) << "\n";
     }
   }
   os << write_bars(r, f) << write_probe_sums(r, f) << write_plans(r, f) << write_layouts(r, f) << write_shg(r, f)

@@ -58,6 +58,16 @@ toml::array fourier_terms_json(const std::vector<FourierTerm>& terms, const Allo
   return a;
 }
 
+std::string as_magnetisation_angles(std::string s) {
+  static const std::pair<std::string, std::string> names[] = {{"phiB", "phiM"},           {"thetaB", "thetaM"},
+                                                              {"\\varphi_B", "\\varphi_M"}, {"\\theta_B", "\\theta_M"},
+                                                              {"φ_B", "φ_M"},             {"θ_B", "θ_M"}};
+  for (const auto& [from, to] : names)
+    for (std::size_t at = s.find(from); at != std::string::npos; at = s.find(from, at + to.size()))
+      s.replace(at, from.size(), to);
+  return s;
+}
+
 std::string optical_amplitude_text(const std::vector<OpticalTerm>& terms, const AllowedForm& form, TextStyle style) {
   if (terms.empty()) return "0";
   std::string s;

@@ -20,6 +20,11 @@ std::string fourier_series_text(const std::vector<FourierTerm>& terms, const All
 // The same terms for JSON: [{"function": "sin(3phi)", "coefficient": "chi_xxy"}, ...].
 toml::array fourier_terms_json(const std::vector<FourierTerm>& terms, const AllowedForm& form);
 
+// The same text with the field angles named as the magnetisation's: phiB, thetaB,
+// \varphi_B, \theta_B, φ_B, θ_B become phiM, thetaM, ... (for parts expanded in M
+// and for a magnetisation direction).
+std::string as_magnetisation_angles(std::string s);
+
 // An optical amplitude: per Fourier term its coefficient as a sum over powers
 // of cos θ and sin θ, e.g. "-chi_xxy*cos(theta)^3*sin(3phi) + (chi_zzz)*sin(theta)".
 std::string optical_amplitude_text(const std::vector<OpticalTerm>& terms, const AllowedForm& form, TextStyle style);

@@ -281,6 +281,36 @@ ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const Response
   return out;
 }
 
+// A part's tensor given as combinations of the parameters of `params` (a domain
+// average), as a form of the part's shape, so a bar contracts it like any form.
+// Only the number of parameters matters to the contraction: the report names
+// them through `params`.
+AllowedForm with_values(const AllowedForm& shape, const ParamTensor& t, const AllowedForm& params) {
+  AllowedForm out = shape;
+  out.parameter_components = params.parameter_components;
+  for (int r = 0; r < shape.symmetry->size(); ++r) out.components[r] = t.components[shape.symmetry->rep_code(r)];
+  return out;
+}
+
+// Why a requested part is no bar reading: a probe reads the electric field (or
+// current) between two contacts, so the part's response index must be E or j.
+std::string unread_reason(const PartForms& p) {
+  if (!p.catalogue_part)
+    return "a tensor given by its spec carries no index roles (which index is the voltage, which the current), so "
+           "no probe contraction is defined; a catalogue entry with roles makes it one (docs/responses.md)";
+  static const std::map<std::string, std::string> what{
+      {"S", "a spin polarisation"}, {"Js", "a spin current"},       {"P", "an electric polarisation"},
+      {"M", "a magnetisation"},     {"light", "an optical field"},  {"g", "a gyration vector (optics)"},
+      {"heat", "a heat current"},   {"Q", "a quadrupole"},          {"strain", "a strain"},
+      {"indicatrix", "the optical indicatrix"}, {"k", "a wave vector"}, {"H", "a magnetic field"}};
+  const auto& ix = p.catalogue_part->indices;
+  const std::string role = ix.empty() ? "" : ix.front();
+  auto it = what.find(role);
+  const std::string response = role.empty() ? "a scalar" : (it == what.end() ? "the quantity " + role : it->second) +
+                                                               " (index role " + role + ")";
+  return "its response is " + response + ", not the electric field or current that two contacts of a bar read";
+}
+
 KerrResult run_kerr(const KerrSpec& spec, const ScenarioResult& res, LatticeKind lattice) {
   KerrResult out;
   out.name = spec.name;
@@ -292,6 +322,30 @@ KerrResult run_kerr(const KerrSpec& spec, const ScenarioResult& res, LatticeKind
     fail(ErrorKind::bad_geometry, "'" + spec.magnetisation + "' is not a magnetisation direction", spec.where,
          "in-plane, normal, any, a crystal direction [uvw] or in-plane:ANGLE");
   out.magnetisation_label = m.field_label;
+  // A fixed magnetisation must be one the final group allows: the moment is an
+  // axial time-odd vector, so it lies in the span of that vector's allowed form.
+  // A group that allows no net moment (grey, or an antiferromagnet) says nothing
+  // here: the quadratic terms then describe the order vector.
+  out.moment_form = allowed_form(parse_tensor_spec("m_a: axial, time-odd"), res.chain.back().group, res.frame);
+  const AllowedForm& mf = *out.moment_form;
+  if ((m.field == FieldGeometry::fixed || m.field == FieldGeometry::normal) && mf.independent() > 0 &&
+      mf.independent() < 3) {
+    const std::array<Surd, 3> d =
+        m.field == FieldGeometry::normal ? std::array<Surd, 3>{Surd(), Surd(), Surd(Rational(1))} : m.b;
+    std::array<std::array<Surd, 3>, 2> v{}; // the allowed directions, one per parameter
+    for (int i = 0; i < 3; ++i)
+      for (const auto& t : mf.value(i)) v[t.parameter][i] = t.coefficient;
+    auto cross = [](const std::array<Surd, 3>& a, const std::array<Surd, 3>& b) {
+      return std::array<Surd, 3>{a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]};
+    };
+    if (mf.independent() == 1) {
+      const auto c = cross(d, v[0]);
+      out.magnetisation_outside_group = !(c[0].is_zero() && c[1].is_zero() && c[2].is_zero());
+    } else {
+      const auto n = cross(v[0], v[1]);
+      out.magnetisation_outside_group = !(d[0] * n[0] + d[1] * n[1] + d[2] * n[2]).is_zero();
+    }
+  }
   for (std::size_t k = 0; k < res.parts.size(); ++k) {
     const ResponsePart* p = res.parts[k].catalogue_part;
     if (!p) continue;
@@ -345,13 +399,18 @@ ScenarioResult run_scenario(const Scenario& sc) {
   res.frame_labels = res.frame.labels;
   const auto& cat = GroupCatalogue::builtin();
 
-  auto push = [&](const std::string& label, const std::string& quantity, PointGroup g) {
+  auto describe = [&](const std::string& label, const PointGroup& g) {
     ChainStep st;
     st.label = label;
-    st.quantity = quantity;
+    st.group = g;
     st.id = identify(g, cat);
     st.sample_symbol = sample_symbol(g, st.id, res.frame);
     st.readable_symbol = readable_symbol(g, st.id, st.sample_symbol);
+    return st;
+  };
+  auto push = [&](const std::string& label, const std::string& quantity, PointGroup g) {
+    ChainStep st = describe(label, g);
+    st.quantity = quantity;
     if (!res.chain.empty())
       for (const auto& op : res.chain.back().group.operations())
         if (!g.contains(op)) st.lost.push_back(op.symbol(lattice));
@@ -458,6 +517,9 @@ ScenarioResult run_scenario(const Scenario& sc) {
     return s.kind == LoweringKind::magnetic_field || s.kind == LoweringKind::moment;
   });
   std::optional<std::pair<std::vector<PointGroup>, std::vector<bool>>> without_b, without_bm;
+  std::optional<ChainStep> evaluated_without[2]; // the last group of without_b, without_bm, described
+  const bool any_b_step = std::any_of(sc.steps.begin(), sc.steps.end(),
+                                      [](const LoweringStep& s) { return s.kind == LoweringKind::magnetic_field; });
   BarMeasurement general; // the most general planar bar: current and field directions free
   const bool magnetic_parent = !res.chain[0].group.is_grey();
   auto fill_forms = [&](PartForms& p) {
@@ -481,6 +543,15 @@ ScenarioResult run_scenario(const Scenario& sc) {
                                                                                    : PlanarReading::not_readable;
       }
       p.planar.push_back(pr);
+    }
+    if (skipped && std::find(skipped->begin(), skipped->end(), true) != skipped->end()) {
+      auto& described = evaluated_without[has_role(p, "M") ? 1 : 0];
+      if (!described) described = describe("without the applied field", groups->back());
+      p.evaluated_in = described;
+    } else if (any_b_step && p.counts.back() > 0) {
+      if (!without_b) without_b = chain_without(false);
+      const PointGroup& g = without_b->first.back();
+      p.induced_by_field = independent_count(p.spec, g) - (p.excluded ? independent_count(*p.excluded, g) : 0) == 0;
     }
     // The time-odd quantities this part's last form was derived with.
     p.sources.magnetisation = magnetic_parent;
@@ -573,7 +644,27 @@ ScenarioResult run_scenario(const Scenario& sc) {
             return responses.get(id).id == p.response_id;
           }) == spec.responses.end())
         continue;
-      br.signals.push_back({k, bar_signal(*p.catalogue_part, p.forms.back(), br.measurement)});
+      br.signals.push_back({k, bar_signal(*p.catalogue_part, p.forms.back(), br.measurement), {}});
+      for (const auto& d : res.domains) {
+        if (d.part != k) continue;
+        auto& averaged = br.signals.back().domain_averaged;
+        averaged.push_back({"", d.form, bar_signal(*p.catalogue_part, with_values(d.form, d.analysis.average, d.form),
+                                                   br.measurement)});
+        if (p.evaluated_in) continue; // an expansion in the field meets it through the bar, not through the lowering
+        for (const auto& t : d.in_field)
+          averaged.push_back({t.field.label, t.form,
+                              bar_signal(*p.catalogue_part, with_values(d.form, t.average, t.form), br.measurement)});
+      }
+    }
+    for (std::size_t k = 0; k < res.parts.size(); ++k) {
+      const PartForms& p = res.parts[k];
+      if (p.catalogue_part && is_bar_part(*p.catalogue_part)) continue;
+      if (!spec.responses.empty() &&
+          std::none_of(spec.responses.begin(), spec.responses.end(), [&](const std::string& id) {
+            return !p.response_id.empty() && responses.get(id).id == p.response_id;
+          }))
+        continue;
+      br.unread.push_back({k, unread_reason(p)});
     }
     br.sum = probe_sum(probe_sum_inputs(res, spec.responses), br.measurement);
     res.bars.push_back(std::move(br));

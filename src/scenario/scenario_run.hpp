@@ -51,18 +51,42 @@ struct PartForms {
   std::vector<bool> field_step_skipped; // per step: this step's field was not applied to this part
   std::vector<PlanarReading> planar;    // per step, for a general planar bar (current and field free)
   TimeOddSources sources;               // what made a c-type form allowed at the last step
+  // The group the final form was solved in when field steps were left out (its
+  // title names this group, not the chain's last); empty when it is the chain's last.
+  std::optional<ChainStep> evaluated_in;
+  // Allowed in the last group, forbidden once the magnetic-field steps are left out
+  // (moment, magnetic order and a magnetic parent kept): the applied field induces
+  // it, no magnetic order of the scenario makes it spontaneous.
+  bool induced_by_field = false;
 };
 
 // The signals of one bar: one entry per bar part of the requested responses.
+// With domains asked for: the bar's reading of the part averaged over the domain
+// variants (the domain section's average, contracted like the single domain), at
+// zero field and, for each applied field step, the part linear in that field.
+struct DomainAveragedSignal {
+  std::string field_label; // empty: at zero field; else the applied field (per unit field)
+  AllowedForm names;       // the form whose parameters the signal is written in
+  PartSignal signal;
+};
+
 struct BarPartSignal {
   std::size_t part = 0; // index into parts
   PartSignal signal;
+  std::vector<DomainAveragedSignal> domain_averaged;
+};
+
+// A requested part that no probe reads, and why (a spin polarisation, a tensor without roles).
+struct BarUnreadPart {
+  std::size_t part = 0; // index into parts
+  std::string reason;
 };
 
 struct BarResult {
   BarMeasurement measurement;
   std::vector<BarPartSignal> signals;
   ProbeSum sum; // every mechanism together, per probe and harmonic, with the Joule background
+  std::vector<BarUnreadPart> unread;
 };
 
 struct LayoutResult {
@@ -126,6 +150,10 @@ struct KerrResult {
   std::optional<std::size_t> g_part, q_part; // indices into parts
   std::vector<KerrReading> kerr;             // when g_part is set
   std::vector<VoigtReading> voigt;           // when q_part is set
+  // The moment (an axial time-odd vector) allowed in the final group, sample frame,
+  // and whether the question's fixed magnetisation direction lies outside it.
+  std::optional<AllowedForm> moment_form;
+  bool magnetisation_outside_group = false;
 };
 
 struct ScenarioResult {
