@@ -78,6 +78,8 @@ def type_ok(value, t):
         return isinstance(value, int) and not isinstance(value, bool)
     if t == "boolean":
         return isinstance(value, bool)
+    if t == "number":
+        return isinstance(value, (int, float)) and not isinstance(value, bool)
     raise Invalid(f"unsupported type {t}")
 
 
@@ -92,7 +94,8 @@ def validate(value, schema, root, path="$"):
         raise Invalid(f"{path}: the built-in validator does not know {sorted(unknown)}")
     if "$ref" in schema:
         validate(value, resolve(root, schema["$ref"]), root, path)
-    if "type" in schema and not type_ok(value, schema["type"]):
+    types = schema["type"] if isinstance(schema.get("type"), list) else [schema["type"]] if "type" in schema else []
+    if types and not any(type_ok(value, t) for t in types):
         raise Invalid(f"{path}: expected {schema['type']}, got {type(value).__name__}")
     if "enum" in schema and value not in schema["enum"]:
         raise Invalid(f"{path}: {value!r} is not one of {schema['enum']}")
@@ -120,7 +123,7 @@ def validate(value, schema, root, path="$"):
             raise Invalid(f"{path}: string shorter than {schema['minLength']}")
         if "pattern" in schema and not re.search(schema["pattern"], value):
             raise Invalid(f"{path}: {value!r} does not match {schema['pattern']}")
-    if isinstance(value, int) and not isinstance(value, bool):
+    if isinstance(value, (int, float)) and not isinstance(value, bool):
         if "minimum" in schema and value < schema["minimum"]:
             raise Invalid(f"{path}: {value} < {schema['minimum']}")
         if "maximum" in schema and value > schema["maximum"]:

@@ -5,6 +5,7 @@
 // two can never disagree. Errors raise tensorsieve.Error with the CLI's
 // located message.
 #include "cli/frame_options.hpp"
+#include "core/data_dir.hpp"
 #include "core/error.hpp"
 #include "group/group_catalogue.hpp"
 #include "group/identify.hpp"
@@ -19,6 +20,7 @@
 #include "scenario/scenario_run.hpp"
 #include "scenario/scenario_table.hpp"
 #include "scenario/screening.hpp"
+#include "tensor/survey.hpp"
 
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
@@ -149,16 +151,29 @@ py::object response(const std::string& id, const std::string& group, const std::
                                    View::automatic));
 }
 
+// A scenario given as a dict (the keys of a scenario file) or as a TOML file path.
+Scenario scenario_of(const py::object& source) {
+  if (py::isinstance<py::dict>(source))
+    return scenario_from_table(table_from_dict(source.cast<py::dict>(), "scenario"), "scenario dict");
+  return load_scenario(py::str(source).cast<std::string>());
+}
+
 py::object scenario(const py::object& source) {
-  Scenario sc;
-  if (py::isinstance<py::dict>(source)) {
-    sc = scenario_from_table(table_from_dict(source.cast<py::dict>(), "scenario"), "scenario dict");
-  } else {
-    sc = load_scenario(py::str(source).cast<std::string>());
-  }
+  const Scenario sc = scenario_of(source);
   // As `run`: a scenario with observations is answered after its report.
   if (!sc.observations.empty()) return parse_json(write_scenario_with_observations(run_observations(sc), Format::json));
   return parse_json(write_scenario(run_scenario(sc), Format::json));
+}
+
+// As `observe --scenario FILE`: the observations alone, against the group the scenario ends in.
+py::object observe_report(const py::object& source) {
+  return parse_json(write_observations(run_observations(scenario_of(source)), Format::json));
+}
+
+py::object survey_report(const std::string& spec, bool magnetic, bool colourless) {
+  const TensorSpec parsed = parse_tensor_spec(spec);
+  const auto groups = survey_groups(GroupCatalogue::builtin(), magnetic, colourless);
+  return parse_json(write_survey(parsed, ts::survey(parsed, groups), Format::json));
 }
 
 StructureFileOptions file_options(const std::string& occupancy, double symprec) {
@@ -233,6 +248,10 @@ PYBIND11_MODULE(_tensorsieve, m) {
       PyErr_SetObject(error_type.ptr(), err.ptr());
     }
   });
+  m.attr("__version__") = TENSORSIEVE_VERSION;
+  m.def("_prefer_data_directory", &prefer_data_directory, py::arg("root"),
+        "read groups/ and the response catalogue from ROOT (the copy a pip-installed package carries)");
+  m.def("_data_directory", &data_directory, "the directory groups/ and the response catalogue are read from");
   m.def("form", &form, py::arg("group"), py::arg("spec"), py::arg("z") = "", py::arg("x") = "",
         py::arg("colourless") = false,
         "allowed form of a tensor spec in a point group (the JSON of `tensorsieve form GROUP SPEC -f json`)");
@@ -249,6 +268,10 @@ PYBIND11_MODULE(_tensorsieve, m) {
         "one response in one point group, as `tensorsieve response ID GROUP`");
   m.def("scenario", &scenario, py::arg("source"),
         "run a scenario given as a dict (the TOML schema of docs/scenarios.md) or a TOML file path");
+  m.def("observe", &observe_report, py::arg("source"),
+        "answer the [[observation]] tables of a scenario (dict or TOML file path), as `tensorsieve observe --scenario`");
+  m.def("survey", &survey_report, py::arg("spec"), py::arg("magnetic") = false, py::arg("colourless") = false,
+        "count a tensor's independent components in every point group, as `tensorsieve survey`");
   m.def("structure", &structure, py::arg("path"), py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
         "read a CIF or mCIF file: point group, space group, BNS number, type and notes");
   m.def("screen", &screen, py::arg("paths"), py::arg("responses"), py::arg("cuts") = std::vector<std::string>{},

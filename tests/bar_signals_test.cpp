@@ -39,8 +39,8 @@ TEST_CASE("planar Hall effect of an isotropic conductor follows sin 2(phi_B - ph
   // A c-plane film of a hexagonal crystal is isotropic in its plane for rank-4 tensors.
   ScenarioResult r = run_scenario(film("6/mmm", "(001)", {"magnetoconductivity-quadratic"}, "rotating", "in-plane"));
   const PartSignal& s = signal_of(r, 1); // the symmetric (magnetoresistance, planar Hall) part
-  CHECK(functions(s.longitudinal.terms) == std::set<std::string>{"1", "cos(2phi - 2phiB)"});
-  CHECK(functions(s.transverse.terms) == std::set<std::string>{"sin(2phi - 2phiB)"});
+  CHECK(functions(s.longitudinal.terms) == std::set<std::string>{"1", "cos(2*phi - 2*phiB)"});
+  CHECK(functions(s.transverse.terms) == std::set<std::string>{"sin(2*phi - 2*phiB)"});
   // The amplitude of the transverse term is minus that of the longitudinal cos term: T = -(1/2) dL/dphi... up to
   // the Hall test, with no Hall part (a symmetric tensor is dissipative).
   CHECK(s.hall_split);
@@ -56,7 +56,7 @@ TEST_CASE("cubic magnetoresistance has the three Seitz terms", "[bar][physics]")
   ScenarioResult r = run_scenario(film("m-3m", "", {"magnetoconductivity-quadratic"}, "rotating", "in-plane"));
   const PartSignal& s = signal_of(r, 1);
   CHECK(r.parts[1].counts.back() == 3);
-  CHECK(functions(s.longitudinal.terms) == std::set<std::string>{"1", "cos(2phi - 2phiB)", "cos(2phi + 2phiB)"});
+  CHECK(functions(s.longitudinal.terms) == std::set<std::string>{"1", "cos(2*phi - 2*phiB)", "cos(2*phi + 2*phiB)"});
 }
 
 TEST_CASE("3m interface at zero field: sin 3phi and cos 3phi, no Berry-curvature dipole", "[bar][physics]") {
@@ -66,9 +66,9 @@ TEST_CASE("3m interface at zero field: sin 3phi and cos 3phi, no Berry-curvature
   ScenarioResult r = run_scenario(film("m-3m", "(111)", {"second-order-conductivity"}, "rotating", "none"));
   const PartSignal& chi = signal_of(r, 0);
   REQUIRE(chi.longitudinal.terms.size() == 1);
-  CHECK(angle_function_text(chi.longitudinal.terms[0]) == "sin(3phi)");
+  CHECK(angle_function_text(chi.longitudinal.terms[0]) == "sin(3*phi)");
   REQUIRE(chi.transverse.terms.size() == 1);
-  CHECK(angle_function_text(chi.transverse.terms[0]) == "cos(3phi)");
+  CHECK(angle_function_text(chi.transverse.terms[0]) == "cos(3*phi)");
   CHECK(chi.longitudinal.terms[0].coefficient == chi.transverse.terms[0].coefficient);
   CHECK(chi.transverse.hall_terms.empty());
   const PartSignal& dipole = signal_of(r, 1);
@@ -89,7 +89,7 @@ TEST_CASE("one mirror adds a first harmonic and a Berry-dipole Hall term cos phi
   sc.steps.push_back(st);
   ScenarioResult r = run_scenario(sc);
   const PartSignal& chi = signal_of(r, 0);
-  CHECK(functions(chi.longitudinal.terms) == std::set<std::string>{"sin(phi)", "sin(3phi)"});
+  CHECK(functions(chi.longitudinal.terms) == std::set<std::string>{"sin(phi)", "sin(3*phi)"});
   const PartSignal& dipole = signal_of(r, 1);
   CHECK(functions(dipole.transverse.terms) == std::set<std::string>{"cos(phi)"});
   CHECK(dipole.longitudinal.terms.empty());
@@ -116,15 +116,15 @@ TEST_CASE("bilinear magnetoresistance of a polar interface goes as sin(phi - phi
   // 4mm adds a' sin(3 phi + phi_B) (derived here).
   ScenarioResult q = run_scenario(film("m-3m", "(001)", {"magnetochiral-anisotropy"}, "rotating", "in-plane"));
   CHECK(functions(signal_of(q, 0).longitudinal.terms) ==
-        std::set<std::string>{"sin(phi - phiB)", "sin(3phi + phiB)"});
+        std::set<std::string>{"sin(phi - phiB)", "sin(3*phi + phiB)"});
 }
 
 TEST_CASE("4mm third order: L3 = A0 + A4 cos 4phi, T3 = -A4 sin 4phi, no Hall part", "[bar][physics]") {
   // Derived here: a fully symmetric rank-4 tensor in C4v, read in plane.
   ScenarioResult r = run_scenario(film("m-3m", "(001)", {"third-order-conductivity"}, "rotating", "none"));
   const PartSignal& s = signal_of(r, 0);
-  CHECK(functions(s.longitudinal.terms) == std::set<std::string>{"1", "cos(4phi)"});
-  CHECK(functions(s.transverse.terms) == std::set<std::string>{"sin(4phi)"});
+  CHECK(functions(s.longitudinal.terms) == std::set<std::string>{"1", "cos(4*phi)"});
+  CHECK(functions(s.transverse.terms) == std::set<std::string>{"sin(4*phi)"});
   CHECK(s.transverse.hall_terms.empty());
   CHECK_FALSE(signal_of(r, 1).reads()); // the Hall part Q has no in-plane reading in 4mm
 }
@@ -228,7 +228,7 @@ TEST_CASE("CLI: bars and layouts from options and from a scenario file, in every
   auto r = run_cli({"sample", "m-3m", "--cut", "(111)", "--response", "second-order-conductivity", "--bar",
                     "rotating:none", "--layout", "second-order-conductivity:2"});
   REQUIRE(r.exit_code == 0);
-  CHECK(r.out.find("longitudinal S_∥ = chi_xxy*sin(3phi)") != std::string::npos);
+  CHECK(r.out.find("longitudinal S_∥ = chi_xxy*sin(3*phi)") != std::string::npos);
   CHECK(r.out.find("2ω X = 0, Y = -sqrt(2)/2 R_2 I_rms^2") != std::string::npos);
   CHECK(r.out.find("lock-in reference sin(nωt)") != std::string::npos);
   CHECK(r.out.find("bar layout") != std::string::npos);
@@ -240,7 +240,7 @@ TEST_CASE("CLI: bars and layouts from options and from a scenario file, in every
   }
   auto j = run_cli({"sample", "m-3m", "--cut", "(111)", "--response", "second-order-conductivity", "--bar",
                     "rotating:none", "-f", "json"});
-  CHECK(j.out.find("\"function\" : \"sin(3phi)\"") != std::string::npos);
+  CHECK(j.out.find("\"function\" : \"sin(3*phi)\"") != std::string::npos);
   CHECK(j.out.find("\"R_n_latex\"") != std::string::npos);
   auto ex = run_cli({"run", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml"});
   CHECK(ex.exit_code == 0);

@@ -54,10 +54,10 @@ TEST_CASE("grey crystal: no Kerr rotation in any geometry (Zvezdin and Kotov 199
   // Δeps_xx - Δeps_yy ∝ cos 2φ_B and Δeps_xy ∝ sin 2φ_B (cubic symmetry, derived here).
   const VoigtReading& a = voigt(r.kerr[0], "xx-yy");
   REQUIRE(a.terms.size() == 1);
-  CHECK(angle_function_text(a.terms[0]) == "cos(2phiB)");
+  CHECK(angle_function_text(a.terms[0]) == "cos(2*phiB)");
   const VoigtReading& xy = voigt(r.kerr[0], "xy");
   REQUIRE(xy.terms.size() == 1);
-  CHECK(angle_function_text(xy.terms[0]) == "sin(2phiB)");
+  CHECK(angle_function_text(xy.terms[0]) == "sin(2*phiB)");
 }
 
 TEST_CASE("ferromagnet with M along the normal: polar Kerr only; in plane: longitudinal and transverse (Zvezdin and Kotov 1997)",

@@ -129,10 +129,10 @@ TEST_CASE("3m face: the four channels and the threefold pattern (Tom, Heinz and 
 
   ScenarioResult n = run_scenario(face("m-3m", "(111)", {"electric-dipole-shg"}, "0"));
   const ShgSource& ed = n.shg[0].sources.at(0);
-  CHECK(amplitude_harmonics(ed.channels[0]) == std::set<std::string>{"sin(3phi)"});
-  CHECK(amplitude_harmonics(ed.channels[3]) == std::set<std::string>{"cos(3phi)"});
+  CHECK(amplitude_harmonics(ed.channels[0]) == std::set<std::string>{"sin(3*phi)"});
+  CHECK(amplitude_harmonics(ed.channels[3]) == std::set<std::string>{"cos(3*phi)"});
   // sin²3φ = (1 - cos 6φ)/2: the intensity holds the constant and 6φ only.
-  CHECK(texts(product_harmonics(ed.channels[0], ed.channels[0])) == std::set<std::string>{"1", "cos(6phi)"});
+  CHECK(texts(product_harmonics(ed.channels[0], ed.channels[0])) == std::set<std::string>{"1", "cos(6*phi)"});
 
   // The GiNaC form of the amplitudes: with the parameter named after chi_xxy = -c,
   // PS = chi_xxy cos²θ cos 3φ and SS = -chi_xxy cos 3φ, equal as expressions.
@@ -148,7 +148,7 @@ TEST_CASE("3m face: the four channels and the threefold pattern (Tom, Heinz and 
   }
 
   ScenarioResult o = run_scenario(face("m-3m", "(111)", {"electric-dipole-shg"}, "45"));
-  CHECK(amplitude_harmonics(o.shg[0].sources.at(0).channels[0]) == std::set<std::string>{"1", "sin(3phi)"});
+  CHECK(amplitude_harmonics(o.shg[0].sources.at(0).channels[0]) == std::set<std::string>{"1", "sin(3*phi)"});
 }
 
 // 4mm with 2 ∥ n: the surviving components chi_zxx = chi_zyy, chi_xxz = chi_yyz and
@@ -253,7 +253,7 @@ TEST_CASE("SHG from the command line and from a scenario file, and bad geometrie
                     "json"});
   REQUIRE(j.exit_code == 0);
   CHECK(j.out.find("\"amplitude\"") != std::string::npos);
-  CHECK(j.out.find("cos(6phi)") != std::string::npos);
+  CHECK(j.out.find("cos(6*phi)") != std::string::npos);
   for (const char* fmt : {"markdown", "latex"}) {
     auto t = run_cli({"sample", "m-3m", "--cut", "(111)", "--shg", "transmission:any", "--format", fmt});
     CHECK(t.exit_code == 0);

@@ -4,14 +4,16 @@ cell by cell in a notebook, or as a script).
 1. write a few invented perovskite-like structures as mCIF files,
 2. screen them for the anomalous Hall effect and the linear magnetoelectric
    effect, in the bulk and as (001) films,
-3. take one allowed form and plot an angle dependence with matplotlib, if it is
-   installed (otherwise print a few values).
+3. take one allowed form as sympy expressions, evaluate an angle dependence
+   (with numpy arrays when numpy is installed, plain lists without) and plot it
+   with matplotlib if that is installed.
 
 The structures are invented for this example: a cubic ABO3 cell (a = 3.9 A)
 with a moment on B, once ferromagnetic along [001], once ferromagnetic along
 [111], and once as a two-sublattice antiferromagnet in a doubled cell.
 """
 
+import math
 import os
 import tempfile
 
@@ -74,23 +76,31 @@ form = ts.form(film_group, "d_ijk: polar, sym(jk)")
 print("allowed in", film_group, ":", ts.components(form))
 phi = sympy.Symbol("phi")
 E = [sympy.cos(phi), 0, sympy.sin(phi)]
-d = {c["index"]: sympy.sympify(c["value"]) for c in form["components"]}
+d = {c["index"]: ts.expr(c["value"]) for c in form["components"]}  # sympy expressions
 P = [sum(d.get(i + j + k, d.get(i + k + j, 0)) * E["xyz".index(j)] * E["xyz".index(k)]
          for j in "xyz" for k in "xyz") for i in "xyz"]
 print("P(2w) =", [sympy.simplify(p) for p in P])
-# Pick invented values for the parameters to draw the curve.
-values = {s: v for s, v in zip(sorted(set().union(*(p.free_symbols for p in P)) - {phi}, key=str), [1.0, 0.4, 0.7])}
-intensity = sympy.lambdify(phi, sum(p**2 for p in P).subs(values))
+# Pick invented values for the parameters to draw the curve, and evaluate the
+# intensity at 361 angles: a numpy array when numpy is installed, a list without.
+intensity = sum(p**2 for p in P)
+names = sorted(str(s) for s in intensity.free_symbols - {phi})
+values = dict(zip(names, [1.0, 0.4, 0.7]))
+print("invented values:", values)
+try:
+    import numpy as np
+    angles = np.linspace(0, 2 * np.pi, 361)
+except ImportError:
+    angles = [2 * math.pi * k / 360 for k in range(361)]
+curve = ts.evaluate(intensity, phi=angles, **values)
+for deg in (0, 30, 90):
+    print(f"phi = {deg:3d} deg: |P|^2 = {curve[deg]:.3f}")
 try:
     import matplotlib
     matplotlib.use("Agg")
     import matplotlib.pyplot as plt
-    import numpy as np
-    angles = np.linspace(0, 2 * np.pi, 361)
-    plt.polar(angles, [intensity(a) for a in angles])
+    plt.polar(angles, curve)
     plt.title(f"|P(2w)|^2 in {film_group}, invented parameters")
     plt.savefig(os.path.join(folder, "shg.png"))
     print("plot written to", os.path.join(folder, "shg.png"))
 except ImportError:
-    for deg in (0, 45, 90):
-        print(f"phi = {deg:3d} deg: |P|^2 = {float(intensity(sympy.pi * deg / 180)):.3f}")
+    print("(matplotlib is not installed: no plot)")

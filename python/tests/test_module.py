@@ -149,8 +149,8 @@ def test_bar_signals_from_a_scenario_dict():
                           "bar": [{"current": "rotating", "field": "none"}]})
     signals = report["bars"][0]["signals"]
     chi = signals[0]
-    assert [t["function"] for t in chi["longitudinal"]["terms"]] == ["sin(3phi)"]
-    assert [t["function"] for t in chi["transverse"]["terms"]] == ["cos(3phi)"]
+    assert [t["function"] for t in chi["longitudinal"]["terms"]] == ["sin(3*phi)"]
+    assert [t["function"] for t in chi["transverse"]["terms"]] == ["cos(3*phi)"]
     assert chi["transverse"]["hall_terms"] == []
     assert signals[1]["reads"] is False  # the dipole is allowed but no planar bar reads it
     assert chi["lock_in"][1] == {"harmonic": 2, "x_factor": "0", "y_factor": "-sqrt(2)/2"}
@@ -252,8 +252,8 @@ def test_local_field_factors_against_sympy(ambient, n_omega, n_2omega, incidence
     # At normal incidence S and P are one wave: the in-plane factors are written as L_x.
     pp, ss = shg["sources"][0]["channels"]
     if incidence == 0:
-        assert pp["amplitude"] == "chi_xxy*Lx_w^2*Lx_2w*sin(3phi)"
-        assert ss["amplitude"] == "-chi_xxy*Lx_w^2*Lx_2w*cos(3phi)"
+        assert pp["amplitude"] == "chi_xxy*Lx_w^2*Lx_2w*sin(3*phi)"
+        assert ss["amplitude"] == "-chi_xxy*Lx_w^2*Lx_2w*cos(3*phi)"
     else:
         assert "Lz_2w" in pp["amplitude"] and "L_{z}(2\\omega)" in pp["amplitude_latex"]
         assert "Ly_w^2*Ly_2w" in ss["amplitude"]

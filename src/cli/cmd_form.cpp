@@ -52,17 +52,8 @@ void setup_survey(CLI::App& app) {
                 "survey the 32 classes as colourless groups G (magnetic order, no time reversal), not as G1'");
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
-    const auto& cat = GroupCatalogue::builtin();
     TensorSpec spec = parse_tensor_spec(o->spec);
-    if (o->magnetic && o->colourless)
-      fail(ErrorKind::usage, "-m lists every magnetic type already; --colourless picks the 32 colourless ones",
-           "--colourless", "either -m or --colourless");
-    std::vector<const NamedGroup*> groups;
-    if (o->magnetic) {
-      groups = cat.types();
-    } else {
-      for (const NamedGroup* g : cat.crystallographic_types()) groups.push_back(o->colourless ? g : &cat.grey_of(*g));
-    }
+    const auto groups = survey_groups(GroupCatalogue::builtin(), o->magnetic, o->colourless);
     emit(o->out, write_survey(spec, survey(spec, groups), parse_format(o->out.format)));
   });
 }

@@ -11,12 +11,18 @@ namespace fs = std::filesystem;
 namespace ts {
 
 namespace {
+std::string& preferred_root() {
+  static std::string root;
+  return root;
+}
+
 // An installed binary (prefix/bin/tensorsieve) uses its own prefix/share first,
 // so a copy installed elsewhere never reads a stale source tree; a binary in the
 // build tree has no such directory beside it and falls through to the sources.
 std::vector<std::string> candidate_roots() {
   std::vector<std::string> c;
   if (const char* env = std::getenv("TENSORSIEVE_DATA"); env && *env) c.emplace_back(env);
+  if (!preferred_root().empty()) c.push_back(preferred_root());
   std::error_code ec;
   fs::path exe = fs::read_symlink("/proc/self/exe", ec);
   if (!ec) c.push_back((exe.parent_path().parent_path() / "share" / "tensorsieve").string());
@@ -36,6 +42,8 @@ std::string data_directory() {
   fail(ErrorKind::bad_file, "cannot find the groups/ data directory (tried " + tried + ")", "",
        "set TENSORSIEVE_DATA to the directory that contains groups/");
 }
+
+void prefer_data_directory(const std::string& root) { preferred_root() = root; }
 
 std::string response_catalogue_path() {
   std::string root = data_directory();

@@ -12,5 +12,9 @@ namespace ts {
 std::string data_directory();
 // Path of the response catalogue file.
 std::string response_catalogue_path();
+// A root to try right after $TENSORSIEVE_DATA: the Python package installed by pip
+// carries its own copy of the data, beside the module, and the interpreter's
+// prefix says nothing about where that is.
+void prefer_data_directory(const std::string& root);
 
 } // namespace ts

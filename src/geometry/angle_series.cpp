@@ -183,7 +183,8 @@ std::string angle_function_text(const FourierTerm& t, bool latex) {
     int n = t.k[i];
     if (n == 0) continue;
     std::string sym = angle_symbol(static_cast<Angle>(i), latex);
-    std::string mag = std::abs(n) == 1 ? sym : std::to_string(std::abs(n)) + (latex ? "" : "") + sym;
+    // "3*phi", not "3phi": the plain text is an expression sympy and Python parse as it stands.
+    std::string mag = std::abs(n) == 1 ? sym : std::to_string(std::abs(n)) + (latex ? "" : "*") + sym;
     if (arg.empty()) arg = (n < 0 ? "-" : "") + mag;
     else arg += (n < 0 ? " - " : " + ") + mag;
   }

@@ -172,7 +172,7 @@ struct Harmonic {
   friend bool operator==(const Harmonic& a, const Harmonic& b) { return a.k == b.k && a.sine == b.sine; }
 };
 std::vector<Harmonic> product_harmonics(const ChannelAmplitude& a, const ChannelAmplitude& b);
-std::string harmonic_text(const Harmonic& h, bool latex = false); // "1", "cos(6phi)"
+std::string harmonic_text(const Harmonic& h, bool latex = false); // "1", "cos(6*phi)"
 
 // The value of one parameter's function at given angles (θ, then the Fourier
 // angles in radians) and values of the local-field factors, for sampling curves.

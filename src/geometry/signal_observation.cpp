@@ -6,10 +6,20 @@
 
 namespace ts {
 
+namespace {
+
+std::string without_stars(std::string s) {
+  s.erase(std::remove(s.begin(), s.end(), '*'), s.end());
+  return s;
+}
+
+} // namespace
+
 void parse_signal_observation(const std::string& raw, SignalObservation& o, const std::string& where) {
+  // Spaces and '*' are dropped, so "sin(3*phi)" (the reports' spelling) and "sin(3phi)" both match.
   std::string text;
   for (char c : raw)
-    if (c != ' ') text += c;
+    if (c != ' ' && c != '*') text += c;
   o.text = raw;
   std::size_t sep = text.find_first_of(":@");
   std::string probe = text.substr(0, sep);
@@ -21,7 +31,7 @@ void parse_signal_observation(const std::string& raw, SignalObservation& o, cons
   if (sep == std::string::npos) return;
   std::string rest = text.substr(sep + 1);
   if (text[sep] == ':') {
-    if (rest.empty()) fail(ErrorKind::usage, "no angle function after ':' in '" + raw + "'", where, "e.g. cos(phi), sin(3phi)");
+    if (rest.empty()) fail(ErrorKind::usage, "no angle function after ':' in '" + raw + "'", where, "e.g. cos(phi), sin(3*phi)");
     o.function = rest;
     return;
   }
@@ -41,7 +51,7 @@ bool shows_signal(const SignalObservation& o, const TensorSpec& version, const P
   const ProbeSignal& p = o.probe == Probe::longitudinal ? ps.longitudinal : ps.transverse;
   if (!o.function.empty())
     return std::any_of(p.terms.begin(), p.terms.end(),
-                       [&](const FourierTerm& t) { return angle_function_text(t) == o.function; });
+                       [&](const FourierTerm& t) { return without_stars(angle_function_text(t)) == o.function; });
   if (o.azimuth < 0) return p.reads();
   // Nonzero at the azimuth for some parameter values: some parameter's coefficient is nonzero there.
   std::vector<Surd> value(form.independent());

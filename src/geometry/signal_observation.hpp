@@ -15,7 +15,7 @@ struct SignalObservation {
   ResponsePart part;           // the catalogue part (its spec's time parity is replaced per version)
   BarMeasurement bar;
   Probe probe = Probe::transverse;
-  std::string function;        // "cos(phi)", "sin(3phi - phiB)"; empty: see azimuth
+  std::string function;        // "cos(phi)", "sin(3*phi - phiB)"; empty: see azimuth
   int azimuth = -1;            // degrees (multiple of 15) at which the probe reads nonzero; -1: any term
   TimeParity parity = TimeParity::either;
   Frame frame;                 // the sample frame

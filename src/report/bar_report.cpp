@@ -74,7 +74,7 @@ std::string spaced(std::string s) {
 
 // R_n of V = R_n I^n for one probe, in a fixed order (GiNaC orders the terms of a
 // sum by hashes that change from run to run, so its printed form is not used):
-// "-rho0^3*L/(w*t)^2*(chi_xxy*sin(3phi))", or the LaTeX of the same.
+// "-rho0^3*L/(w*t)^2*(chi_xxy*sin(3*phi))", or the LaTeX of the same.
 std::string coefficient_text(const PartSignal& ps, const ProbeSignal& p, const AllowedForm& form, TextStyle style) {
   const int n = ps.current_order;
   const std::string series = fourier_series_text(p.terms, form, style);

@@ -5,8 +5,11 @@
 namespace ts {
 
 std::string json_text(const toml::table& t) {
+  // Every document says which version wrote it, so a saved result can be traced.
+  toml::table doc = t;
+  doc.insert_or_assign("version", TENSORSIEVE_VERSION);
   std::ostringstream os;
-  os << toml::json_formatter{t} << "\n";
+  os << toml::json_formatter{doc} << "\n";
   return os.str();
 }
 

@@ -8,6 +8,7 @@
 
 namespace ts {
 
+// The document with a top-level "version" key (the tensorsieve version) added.
 std::string json_text(const toml::table& t);
 // The same object on one line (JSON Lines), ending in a newline.
 std::string json_line(const toml::table& t);

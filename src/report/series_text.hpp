@@ -14,10 +14,10 @@
 
 namespace ts {
 
-// "chi_xxy*sin(3phi) + (chi_zxx - chi_zzz)*cos(2phi)"; "0" when empty.
+// "chi_xxy*sin(3*phi) + (chi_zxx - chi_zzz)*cos(2*phi)"; "0" when empty.
 std::string fourier_series_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, TextStyle style);
 
-// The same terms for JSON: [{"function": "sin(3phi)", "coefficient": "chi_xxy"}, ...].
+// The same terms for JSON: [{"function": "sin(3*phi)", "coefficient": "chi_xxy"}, ...].
 toml::array fourier_terms_json(const std::vector<FourierTerm>& terms, const AllowedForm& form);
 
 // The same text with the field angles named as the magnetisation's: phiB, thetaB,
@@ -26,7 +26,7 @@ toml::array fourier_terms_json(const std::vector<FourierTerm>& terms, const Allo
 std::string as_magnetisation_angles(std::string s);
 
 // An optical amplitude: per Fourier term its coefficient as a sum over powers
-// of cos θ and sin θ, e.g. "-chi_xxy*cos(theta)^3*sin(3phi) + (chi_zzz)*sin(theta)".
+// of cos θ and sin θ, e.g. "-chi_xxy*cos(theta)^3*sin(3*phi) + (chi_zzz)*sin(theta)".
 std::string optical_amplitude_text(const std::vector<OpticalTerm>& terms, const AllowedForm& form, TextStyle style);
 
 } // namespace ts

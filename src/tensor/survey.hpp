@@ -16,4 +16,9 @@ struct SurveyRow {
 
 std::vector<SurveyRow> survey(const TensorSpec& spec, const std::vector<const NamedGroup*>& groups);
 
+// The groups a survey runs over: the 122 magnetic types (magnetic), the 32 classes as
+// colourless groups G (colourless), or by default the 32 classes as non-magnetic
+// crystals G1'. Both flags at once are a usage error naming --colourless.
+std::vector<const NamedGroup*> survey_groups(const GroupCatalogue& catalogue, bool magnetic, bool colourless);
+
 } // namespace ts
