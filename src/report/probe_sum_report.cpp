@@ -41,12 +41,14 @@ std::string type_text(const SumMechanism& m) {
   return s;
 }
 
-std::string signal_text(const ScenarioResult& r, const SumMechanism& m, const SumTerm& t, Format f) {
+std::string signal_text(const ScenarioResult& r, const SumMechanism& m, const SumTerm& t, Format f,
+                        bool magnetisation_angles) {
   std::string pre = m.field_driven ? (f == Format::latex ? "-\\rho_0^{" + std::to_string(m.current_order + 1) + "} "
                                                          : "-rho0^" + std::to_string(m.current_order + 1) + " × ")
                                    : "";
   if (m.thermal) pre += f == Format::latex ? "G\\," : "G × ";
   std::string body = fourier_series_text(t.terms, form_of(r, m), style_of(f));
+  if (magnetisation_angles) body = as_magnetisation_angles(body);
   const bool several = t.terms.size() > 1 || (t.terms.size() == 1 && t.terms[0].coefficient.size() > 1);
   if (!pre.empty() && several) body = (f == Format::latex ? "\\left(" + body + "\\right)" : "(" + body + ")");
   return math(pre + body, f);
@@ -90,6 +92,13 @@ std::string write_probe_sums(const ScenarioResult& r, Format f) {
                       (m.field_label.empty() ? field_geometry_name(m.field) : m.field_label) + "; " +
                       (m.waveform == Waveform::sine ? "sine" : "cosine") + " drive",
                   f, 3);
+    // Only expansions in M read the bar's direction: its angles are the magnetisation's.
+    bool any_m = false, any_b = false;
+    for (const auto& mech : s.mechanisms) {
+      any_m = any_m || mech.magnetisation_order > 0;
+      any_b = any_b || mech.field_order > 0;
+    }
+    const bool m_only = any_m && !any_b;
     if (s.magnetisation_follows_field)
       os << bullet(f)
          << prose("the bar's one direction carries both the field and the saturated magnetisation: φ_B is also the "
@@ -114,7 +123,7 @@ std::string write_probe_sums(const ScenarioResult& r, Format f) {
                             (rd.with_dc ? "; DC " + math((t.dc == Surd(Rational(1)) ? std::string() : surd_text(t.dc, style_of(f)) + " ") +
                                                              (f == Format::latex ? "R_{" + power + "}" : "R_" + power), f)
                                         : std::string()),
-                        signal_text(r, mech, t, f)});
+                        signal_text(r, mech, t, f, m_only)});
       }
       os << grid({"#", "mechanism", "order", "B", "M", "type", "lock-in", "S"}, rows, f) << "\n";
       if (rd.separations.empty()) continue;
