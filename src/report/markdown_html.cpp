@@ -17,7 +17,9 @@ std::string inline_html(const std::string& s) {
     if (s[i] == '`') {
       const std::size_t end = s.find('`', i + 1);
       if (end != std::string::npos) {
-        out += "<code>" + html_formula(s.substr(i + 1, end - i - 1)) + "</code>";
+        // A tensor spec ("sigma_ab: polar, time-odd") is words, not a formula: kept as typed.
+        const std::string span = s.substr(i + 1, end - i - 1);
+        out += "<code>" + (span.find(": ") != std::string::npos ? html_escape(span) : html_formula(span)) + "</code>";
         i = end + 1;
         continue;
       }
