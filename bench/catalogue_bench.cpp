@@ -24,6 +24,9 @@
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
 #include "geometry/sample_frame.hpp"
+#include "report/html_report.hpp"
+#include "report/report_format.hpp"
+#include "report/scenario_report.hpp"
 #include "scenario/scenario_run.hpp"
 
 #include <numeric>
@@ -287,6 +290,19 @@ int run(const Args& args) {
   const auto types = cat->types();
   print_figure("magnetic point-group types in the catalogue", std::to_string(types.size()));
   print_startup_figures(R);
+
+  // ---- the writers on the default example ----------------------------------------
+  // The text report wrapped to a terminal of 80 columns, and the HTML page: the
+  // summary, the whole report rendered from the Markdown writer, every figure drawn.
+  {
+    const ScenarioResult example = run_scenario(load_scenario(std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml"));
+    set_text_width(80);
+    Timing wrapped = time_repeated(R, [&] { (void)wrap_text(write_scenario(example, Format::text), 80); });
+    set_text_width(0);
+    print_figure("default example: text report wrapped to 80 columns, median", duration_text(wrapped.median));
+    Timing page = time_repeated(R, [&] { (void)write_scenario_html(example); });
+    print_figure("default example: HTML page with its figures, median", duration_text(page.median));
+  }
 
   // ---- the whole catalogue of forms --------------------------------------------
   const long n_forms = static_cast<long>(specs.size() * types.size());

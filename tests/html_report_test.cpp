@@ -77,16 +77,35 @@ TEST_CASE("HTML report: self-contained, rendered by headless Chromium", "[html]"
                 shell_quote((dir / "dom.html").string()) + " 2>" + shell_quote((dir / "dom.err").string())) == 0);
   const std::string dom = read_file(dir / "dom.html");
   CHECK(count_of(dom, "<figure") >= 3);
+  CHECK(dom.find("<section id=\"summary\">") != std::string::npos);
+  CHECK(dom.find("Summary and verdicts") != std::string::npos);
+  CHECK(std::regex_search(dom, std::regex("<td>second-order-conductivity</td><td>[^<]*</td><td>[0-9 →]+</td><td>[a-z]")));
+  CHECK(dom.find("Symmetry chain") == std::string::npos); // one chain, the writers', not a second one of the page's own
+  CHECK(count_of(dom, "symmetry chain") == 2);             // in the summary and in the report
   CHECK(count_of(dom, "<svg") >= 3);
   CHECK(dom.find("Second-harmonic polarimetry") != std::string::npos);
 }
 
 TEST_CASE("HTML report from a scenario file, and formats other commands refuse", "[html]") {
   TempDir dir;
-  auto r = run_cli({"run", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml", "-f", "html"});
+  auto r = run_cli({"run", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml", "-f", "html"},
+                   {{"SOURCE_DATE_EPOCH", "1767225600"}});
   REQUIRE(r.exit_code == 0);
-  CHECK(r.out.find("<h2>Hall bars</h2>") != std::string::npos);
+  CHECK(r.out.find("Hall bars</h") != std::string::npos);
   CHECK(r.out.find("</html>") != std::string::npos);
+  // Everything the text report has: the same writer's sections, one by one.
+  const auto text = run_cli({"run", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml"});
+  for (const char* section : {"symmetry chain", "verdicts after step", "domains: ", "lock-in readings", "Hall test",
+                              "bar layout", "average over"}) {
+    INFO(section);
+    CHECK(r.out.find(section) != std::string::npos);
+  }
+  CHECK(text.out.find("lock-in readings") != std::string::npos);
+  // Version, date and command; no path of this machine.
+  CHECK(std::regex_search(r.out, std::regex("tensorsieve [0-9.]+, 2026-01-01; command: <code>tensorsieve run "
+                                            "strained-film.toml -f html</code>")));
+  CHECK(r.out.find(TENSORSIEVE_SOURCE_DIR) == std::string::npos);
+  CHECK(r.out.find("/tmp/") == std::string::npos);
   auto bad = run_cli({"form", "4mm", "V", "-f", "html"});
   CHECK(bad.exit_code != 0);
 }

@@ -6,6 +6,7 @@
 #include <catch2/catch.hpp>
 
 #include <filesystem>
+#include <fstream>
 #include <sstream>
 
 namespace fs = std::filesystem;
@@ -45,8 +46,9 @@ std::vector<std::vector<std::string>> latex_commands() {
 } // namespace
 
 TEST_CASE("LaTeX output: ASCII only, and pdflatex compiles it", "[latex][formats]") {
-  std::ostringstream doc;
+  std::ostringstream doc, examples;
   doc << "\\documentclass{article}\n\\usepackage{amsmath}\n\\begin{document}\n";
+  examples << doc.str();
   int fragments = 0;
   for (auto cmd : latex_commands()) {
     std::string label;
@@ -59,9 +61,11 @@ TEST_CASE("LaTeX output: ASCII only, and pdflatex compiles it", "[latex][formats
     for (unsigned char c : r.out) ascii = ascii && c < 128;
     CHECK(ascii);
     doc << "\\clearpage\n" << r.out << "\n";
+    if (cmd[0] == "run") examples << "\\clearpage\n" << r.out << "\n";
     ++fragments;
   }
   doc << "\\end{document}\n";
+  examples << "\\end{document}\n";
   CHECK(fragments > 40);
   if (std::system("command -v pdflatex >/dev/null 2>&1") != 0) {
     WARN("pdflatex not installed: only the ASCII check ran (scripts/setup --with-tests installs it)");
@@ -69,10 +73,50 @@ TEST_CASE("LaTeX output: ASCII only, and pdflatex compiles it", "[latex][formats
   }
   ts::test::TempDir dir;
   std::ofstream(dir / "all.tex") << doc.str();
+  std::ofstream(dir / "examples.tex") << examples.str();
   const std::string cmd = "cd " + ts::test::shell_quote(dir.path().string()) +
                           " && pdflatex -interaction=nonstopmode -halt-on-error all.tex >log.txt 2>&1";
   const int rc = std::system(cmd.c_str());
   INFO(ts::test::read_file(dir / "log.txt").substr(0, 6000));
   CHECK(rc == 0);
   CHECK(fs::exists(dir / "all.pdf"));
+  CHECK(ts::test::read_file(dir / "all.log").find("\n! ") == std::string::npos); // no TeX error anywhere
+  // The reports of the examples as a paper would include them: tables fit the page and
+  // no line runs into the margin, not one overfull box.
+  REQUIRE(std::system(("cd " + ts::test::shell_quote(dir.path().string()) +
+                       " && pdflatex -interaction=nonstopmode -halt-on-error examples.tex >log2.txt 2>&1")
+                          .c_str()) == 0);
+  const std::string log = ts::test::read_file(dir / "examples.log");
+  std::size_t overfull = 0;
+  for (std::size_t p = log.find("Overfull \\"); p != std::string::npos; p = log.find("Overfull \\", p + 1)) {
+    if (overfull < 5) UNSCOPED_INFO(log.substr(p, 400));
+    ++overfull;
+  }
+  CHECK(overfull == 0);
+  CHECK(log.find("\n! ") == std::string::npos);
+}
+
+TEST_CASE("LaTeX output: overbars, options kept whole, every string escaped", "[latex][formats]") {
+  // common practice: Hermann-Mauguin symbols are typeset with overbars, m\bar{3}m
+  const auto chain = run_cli({"sample", "m-3m", "--cut", "(111)", "--response", "pyroelectric", "-f", "latex"});
+  REQUIRE(chain.exit_code == 0);
+  CHECK_THAT(chain.out, Catch::Contains("$\\mathrm{m\\bar{3}m1'}$"));
+  CHECK_THAT(chain.out, !Catch::Contains("m-3m"));
+  // "--format" would be set as an en dash and "format"
+  const auto many = run_cli({"sample", "m-3m", "--response", "all", "-f", "latex"});
+  REQUIRE(many.exit_code == 0);
+  std::size_t bare = 0;
+  for (std::size_t p = many.out.find("--"); p != std::string::npos; p = many.out.find("--", p + 2)) {
+    const std::size_t line = many.out.rfind('\n', p) + 1;
+    if (many.out[line] != '%' && many.out.compare(p, 3, "---") != 0) ++bare;
+  }
+  CHECK(bare == 0);
+  // A title with every character LaTeX treats specially.
+  ts::test::TempDir dir;
+  std::ofstream(dir / "odd.toml") << "title = \"50% & more: x_1 #2 ~{a}^b $ \\\\ end\"\nresponses = [\"pyroelectric\"]\n"
+                                     "[crystal]\ngroup = \"4mm\"\n";
+  const auto odd = run_cli({"run", (dir / "odd.toml").string(), "-f", "latex"});
+  REQUIRE(odd.exit_code == 0);
+  CHECK_THAT(odd.out, Catch::Contains("50\\% \\& more: x\\_1 \\#2 \\textasciitilde{}\\{a\\}\\textasciicircum{}b \\$ "
+                                      "\\textbackslash{} end"));
 }

@@ -25,8 +25,7 @@ void setup_form(CLI::App& app) {
   add_colourless_flag(*cmd, o->colourless);
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
-    const auto& cat = GroupCatalogue::builtin();
-    const NamedGroup& g = cat.get(o->group, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
+    const NamedGroup& g = read_group(o->group, o->colourless);
     TensorSpec spec = parse_tensor_spec(o->spec);
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);

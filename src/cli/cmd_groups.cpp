@@ -44,7 +44,7 @@ void setup_group(CLI::App& app) {
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     const auto& cat = GroupCatalogue::builtin();
-    const NamedGroup& g = cat.get(o->symbol, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
+    const NamedGroup& g = read_group(o->symbol, o->colourless);
     emit(o->out, write_group_description(describe_group(g, o->subgroups, cat), parse_format(o->out.format)));
   });
 }

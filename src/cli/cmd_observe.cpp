@@ -43,6 +43,7 @@ void setup_observe(CLI::App& app) {
     } else {
       if (o->sample.sc.group.empty())
         fail(ErrorKind::usage, "no sample given", "observe", "a parent group (observe m-3m --cut \"(001)\" ...) or --scenario FILE");
+      read_group(o->sample.sc.group, o->sample.colourless); // the note on a bare symbol, as in `form`
       sc = scenario_from_options(o->sample);
       ObservationRequest seen = o->seen;
       seen.where = "--response/--tensor/--component";

@@ -39,8 +39,7 @@ void setup_response_form(CLI::App& app) {
   add_output_options(*cmd, o->out);
   cmd->callback([o] {
     const Response& r = ResponseCatalogue::builtin().get(o->id);
-    const NamedGroup& g = GroupCatalogue::builtin().get(
-        o->group, o->colourless ? PlainSymbol::colourless : PlainSymbol::nonmagnetic);
+    const NamedGroup& g = read_group(o->group, o->colourless);
     View view = parse_view(o->view);
     Format format = parse_format(o->out.format);
     FrameContext fc;

@@ -1,6 +1,7 @@
 // tensorsieve run SCENARIO.toml | sample GROUP --cut ... --lower KIND:VALUE ...
 #include "cli/commands.hpp"
 #include "cli/figure_options.hpp"
+#include "cli/report_options.hpp"
 #include "cli/sample_options.hpp"
 #include "core/error.hpp"
 #include "geometry/bar_measurement.hpp"
@@ -16,6 +17,7 @@ void setup_run(CLI::App& app) {
   struct Opts {
     OutputOptions out;
     FigureOptions figures;
+    ReportOptions report;
     std::string file, fractions;
     std::vector<std::string> orders;
   };
@@ -25,20 +27,22 @@ void setup_run(CLI::App& app) {
   add_fractions_option(*cmd, o->fractions);
   add_order_option(*cmd, o->orders);
   add_figure_options(*cmd, o->figures);
-  add_output_options(*cmd, o->out);
+  add_report_options(*cmd, o->report);
+  add_output_options(*cmd, o->out, true);
   cmd->callback([o] {
-    if (o->out.format != "html") parse_format(o->out.format); // a bad format fails before the run
+    check_brief(o->report, o->out);
     Scenario sc = load_scenario(o->file);
     apply_fractions_option(o->fractions, sc);
     apply_order_options(o->orders, sc);
     apply_figure_options(o->figures, sc);
+    apply_only_option(o->report, sc);
     if (sc.observations.empty()) {
-      emit_scenario(o->out, run_scenario(sc));
+      emit_scenario(o->out, run_scenario(sc), nullptr, o->report.brief, o->figures);
       return;
     }
     // The observations are answered against the group the chain ends in, as `observe` does.
     const ObservationRun run = run_observations(sc);
-    emit_scenario(o->out, run.scenario, &run);
+    emit_scenario(o->out, run.scenario, &run, o->report.brief, o->figures);
   });
 }
 
@@ -47,6 +51,7 @@ void setup_sample(CLI::App& app) {
     OutputOptions out;
     FigureOptions figures;
     SampleOptions sample;
+    ReportOptions report;
     std::string fractions;
     std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr, orders;
     bool shg_local_field = false;
@@ -104,9 +109,10 @@ void setup_sample(CLI::App& app) {
                   "in-plane:ANGLE; reports the Kerr geometries the group allows and the quadratic terms")
       ->allow_extra_args(false);
   add_figure_options(*cmd, o->figures);
-  add_output_options(*cmd, o->out);
+  add_report_options(*cmd, o->report);
+  add_output_options(*cmd, o->out, true);
   cmd->callback([o] {
-    if (o->out.format != "html") parse_format(o->out.format);
+    check_brief(o->report, o->out);
     Scenario sc = scenario_from_options(o->sample);
     apply_figure_options(o->figures, sc);
     // Optical questions without --response ask for the responses they read.
@@ -173,7 +179,8 @@ void setup_sample(CLI::App& app) {
     if (sc.responses.empty() && sc.tensors.empty())
       fail(ErrorKind::usage, "ask for at least one response or tensor", "--response/--tensor",
            "--response anomalous-hall, or --tensor \"V[V2]\"");
-    emit_scenario(o->out, run_scenario(sc));
+    apply_only_option(o->report, sc);
+    emit_scenario(o->out, run_scenario(sc), nullptr, o->report.brief, o->figures);
   });
 }
 

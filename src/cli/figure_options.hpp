@@ -5,7 +5,9 @@
 
 #include "cli/commands.hpp"
 #include "core/error.hpp"
+#include "core/text.hpp"
 #include "figure/figure_draw.hpp"
+#include "report/brief_report.hpp"
 #include "report/html_report.hpp"
 #include "report/observation_report.hpp"
 #include "report/scenario_report.hpp"
@@ -20,8 +22,9 @@
 namespace ts::cli {
 
 struct FigureOptions {
-  std::string directory, incidence;
+  std::string directory, incidence, column;
   std::vector<std::string> formats, values;
+  int dpi = 0;
 };
 
 inline void add_figure_options(CLI::App& cmd, FigureOptions& o) {
@@ -30,6 +33,9 @@ inline void add_figure_options(CLI::App& cmd, FigureOptions& o) {
   cmd.add_option("--figure-value", o.values,
                  "illustrative value of a parameter in the figures, NAME=VALUE (repeatable; default 1 for all)")
       ->allow_extra_args(false);
+  cmd.add_option("--figure-column", o.column,
+                 "journal column the figures are sized for: single (3.4 in) or double (7 in); default by figure");
+  cmd.add_option("--figure-dpi", o.dpi, "resolution of PNG figures in pixels per inch (default 300)");
   cmd.add_option("--figure-incidence", o.incidence,
                  "illustrative angle of incidence in degrees for SHG setups whose angle is a variable (default 45)");
 }
@@ -42,6 +48,10 @@ inline void apply_figure_options(const FigureOptions& o, Scenario& sc) {
   f.present = true;
   if (f.where.empty()) f.where = "--figure-value";
   if (!o.directory.empty()) f.directory = o.directory;
+  if (!o.column.empty() && o.column != "single" && o.column != "double")
+    fail(ErrorKind::usage, "unknown column '" + o.column + "'", "--figure-column", "single or double");
+  if (o.dpi != 0 && (o.dpi < 50 || o.dpi > 1200))
+    fail(ErrorKind::usage, "--figure-dpi " + std::to_string(o.dpi) + " is out of range", "--figure-dpi", "50 to 1200");
   for (const auto& name : o.formats) parse_figure_format(name, "--figure-format");
   if (!o.formats.empty()) f.formats = o.formats;
   for (const auto& v : o.values) {
@@ -69,20 +79,27 @@ inline void apply_figure_options(const FigureOptions& o, Scenario& sc) {
 
 // Report in the requested format, then the figure files; every figure is
 // drawn before anything is written, so a bad value leaves no file behind.
-// With `observations` (whose scenario is `r`), the report also answers them.
-inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, const ObservationRun* observations = nullptr) {
+// With `observations` (whose scenario is `r`), the report also answers them; `brief`
+// asks for the chain and the verdicts only.
+inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, const ObservationRun* observations = nullptr,
+                          bool brief = false, const FigureOptions& look = {}) {
   const FigureSpec& spec = r.scenario.figures;
   std::vector<FigureFormat> formats;
   for (const auto& name : spec.formats) formats.push_back(parse_figure_format(name, spec.where));
   if (formats.empty()) formats = {FigureFormat::svg, FigureFormat::pdf};
   std::vector<FigureData> figures;
   if (!spec.directory.empty()) figures = scenario_figures(r, figure_settings(spec));
-  if (out.format == "html") emit(out, write_scenario_html(r, observations));
+  for (auto& f : figures)
+    f.column = look.column == "single" ? FigureColumn::single
+               : look.column == "double" ? FigureColumn::double_column
+                                         : FigureColumn::automatic;
+  if (out.format == "html") emit(out, write_scenario_html(r, observations, {report_date(), command_line()}));
+  else if (brief) emit(out, write_scenario_brief(r, parse_format(out.format), observations));
   else if (observations) emit(out, write_scenario_with_observations(*observations, parse_format(out.format)));
   else emit(out, write_scenario(r, parse_format(out.format)));
   if (spec.directory.empty()) return;
-  std::vector<std::string> written = write_figures(figures, spec.directory, formats);
-  std::cerr << "tensorsieve: wrote " << figures.size() << " figure(s), " << written.size() << " files, into "
+  std::vector<std::string> written = write_figures(figures, spec.directory, formats, look.dpi ? look.dpi : 300);
+  std::cerr << "tensorsieve: wrote " << counted(figures.size(), "figure") << ", " << counted(written.size(), "file") << ", into "
             << spec.directory << "\n";
 }
 

@@ -1,6 +1,7 @@
 // Small text helpers shared by the report writers and the catalogue loader.
 #pragma once
 
+#include <algorithm>
 #include <string>
 #include <vector>
 
@@ -22,6 +23,28 @@ inline std::vector<std::string> split(const std::string& text, char separator) {
     if (at == std::string::npos) return fields;
     start = at + 1;
   }
+}
+
+// "1 part", "3 parts": a count with its noun in the right number.
+inline std::string counted(std::size_t n, const std::string& singular, const std::string& plural = "") {
+  return std::to_string(n) + " " + (n == 1 ? singular : plural.empty() ? singular + "s" : plural);
+}
+
+// Levenshtein distance: the number of single-character insertions, deletions and
+// substitutions between a and b. Ranks the "closest" names of an error message.
+inline std::size_t edit_distance(const std::string& a, const std::string& b) {
+  std::vector<std::size_t> row(b.size() + 1);
+  for (std::size_t j = 0; j <= b.size(); ++j) row[j] = j;
+  for (std::size_t i = 1; i <= a.size(); ++i) {
+    std::size_t diag = row[0];
+    row[0] = i;
+    for (std::size_t j = 1; j <= b.size(); ++j) {
+      std::size_t up = row[j];
+      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diag + (a[i - 1] == b[j - 1] ? 0 : 1)});
+      diag = up;
+    }
+  }
+  return row[b.size()];
 }
 
 // An error message made safe for a terminal: invalid UTF-8 (a quoted fragment of a

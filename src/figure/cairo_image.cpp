@@ -3,6 +3,7 @@
 
 #include <cairo.h>
 
+#include <algorithm>
 #include <cstdint>
 #include <cstdlib>
 #include <cstring>
@@ -26,7 +27,9 @@ cairo_status_t read_bytes(void* closure, unsigned char* data, unsigned int lengt
 
 } // namespace
 
-ImageInk png_ink(const std::string& png_bytes, const std::string& what) {
+ImageInk png_ink(const std::string& png_bytes, const std::string& what) { return png_ink(png_bytes, what, 0, 0, 1, 1); }
+
+ImageInk png_ink(const std::string& png_bytes, const std::string& what, double fx0, double fy0, double fx1, double fy1) {
   Reader reader{&png_bytes};
   cairo_surface_t* s = cairo_image_surface_create_from_png_stream(read_bytes, &reader);
   if (cairo_surface_status(s) != CAIRO_STATUS_SUCCESS) {
@@ -51,8 +54,10 @@ ImageInk png_ink(const std::string& png_bytes, const std::string& what) {
   };
   const std::uint32_t background = pixel(0, 0);
   long inked = 0, coloured = 0;
-  for (int y = 0; y < out.height; ++y)
-    for (int x = 0; x < out.width; ++x) {
+  const int xa = static_cast<int>(fx0 * out.width), xb = static_cast<int>(fx1 * out.width);
+  const int ya = static_cast<int>(fy0 * out.height), yb = static_cast<int>(fy1 * out.height);
+  for (int y = std::max(0, ya); y < std::min(out.height, yb); ++y)
+    for (int x = std::max(0, xa); x < std::min(out.width, xb); ++x) {
       const std::uint32_t v = pixel(x, y);
       int diff = 0;
       for (int c = 0; c < 3; ++c) diff += std::abs(static_cast<int>((v >> (8 * c)) & 0xff) - static_cast<int>((background >> (8 * c)) & 0xff));
@@ -60,7 +65,8 @@ ImageInk png_ink(const std::string& png_bytes, const std::string& what) {
       const int r = (v >> 16) & 0xff, g = (v >> 8) & 0xff, b = v & 0xff;
       if (std::abs(r - g) > 40 || std::abs(g - b) > 40 || std::abs(r - b) > 40) ++coloured;
     }
-  const double n = static_cast<double>(out.width) * out.height;
+  const double n = std::max(1.0, static_cast<double>(std::min(out.width, xb) - std::max(0, xa)) *
+                                      (std::min(out.height, yb) - std::max(0, ya)));
   out.ink = inked / n;
   out.coloured = coloured / n;
   cairo_surface_destroy(s);

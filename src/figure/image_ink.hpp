@@ -14,5 +14,8 @@ struct ImageInk {
 
 // A PNG image given as bytes; throws Error(bad_file) naming `what` when it is not a PNG.
 ImageInk png_ink(const std::string& png_bytes, const std::string& what);
+// The same for a rectangle of the image given as fractions of its width and height
+// (0 0 1 1 is the whole image); width and height are still the whole image's.
+ImageInk png_ink(const std::string& png_bytes, const std::string& what, double x0, double y0, double x1, double y1);
 
 } // namespace ts

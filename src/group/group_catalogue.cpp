@@ -1,6 +1,7 @@
 #include "group/group_catalogue.hpp"
 
 #include "core/data_dir.hpp"
+#include "core/text.hpp"
 #include "data/toml_read.hpp"
 
 #include <algorithm>
@@ -147,18 +148,6 @@ bool alias_frame(const std::string& name, const std::string& alias, std::string*
     }
   }
   return false;
-}
-
-std::size_t edit_distance(const std::string& a, const std::string& b) {
-  std::vector<std::size_t> prev(b.size() + 1), cur(b.size() + 1);
-  for (std::size_t j = 0; j <= b.size(); ++j) prev[j] = j;
-  for (std::size_t i = 1; i <= a.size(); ++i) {
-    cur[0] = i;
-    for (std::size_t j = 1; j <= b.size(); ++j)
-      cur[j] = std::min({prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1)});
-    std::swap(prev, cur);
-  }
-  return prev[b.size()];
 }
 
 std::string lower(std::string s) {
@@ -377,7 +366,35 @@ const NamedGroup* GroupCatalogue::find(const std::string& symbol) const {
       if (auto g = try_schoenflies(alt)) return g;
     }
   }
-  return nullptr;
+  return find_without_overbars(key);
+}
+
+// Plain text often loses the overbar: "m3m" for m-3m, "43m" for -43m, "6m2" for -6m2.
+// Such a spelling is read only when it names no group itself and exactly one placement
+// of bars over its digits 1, 3, 4 and 6 gives a group: "3m" stays 3m (C3v), never -3m.
+const NamedGroup* GroupCatalogue::find_without_overbars(const std::string& key) const {
+  if (key.find('-') != std::string::npos) return nullptr;
+  std::vector<std::size_t> digits;
+  for (std::size_t i = 0; i < key.size(); ++i)
+    if (key[i] == '1' || key[i] == '3' || key[i] == '4' || key[i] == '6') digits.push_back(i);
+  if (digits.empty() || digits.size() > 4) return nullptr;
+  const NamedGroup* found = nullptr;
+  for (unsigned mask = 1; mask < (1u << digits.size()); ++mask) {
+    std::string barred;
+    for (std::size_t i = 0, d = 0; i < key.size(); ++i) {
+      if (d < digits.size() && digits[d] == i) {
+        if (mask & (1u << d)) barred += '-';
+        ++d;
+      }
+      barred += key[i];
+    }
+    auto it = by_symbol_.find(barred);
+    if (it == by_symbol_.end()) continue;
+    const NamedGroup* g = &groups_[it->second];
+    if (found && found != g) return nullptr; // two readings: refuse rather than guess
+    found = g;
+  }
+  return found;
 }
 
 std::vector<std::string> GroupCatalogue::closest_symbols(const std::string& symbol, std::size_t how_many) const {

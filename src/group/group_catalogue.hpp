@@ -79,7 +79,8 @@ public:
   std::vector<const NamedGroup*> crystallographic_types() const;                 // the 32 colourless standards
 
   // Lookup by HM symbol (primes, spaces, aliases, unicode minus and primes accepted)
-  // or Schoenflies symbol ("C4v", "C4v1'", "C4v(C2v)").
+  // or Schoenflies symbol ("C4v", "C4v1'", "C4v(C2v)"); a plain spelling that lost its
+  // overbars ("m3m", "43m") when exactly one group reads that way.
   const NamedGroup* find(const std::string& symbol) const;
   const NamedGroup& get(const std::string& symbol) const; // throws Error(unknown_name) with suggestions
   // As get(), with a symbol without primes read as `reading` says.
@@ -93,6 +94,7 @@ public:
 
 private:
   void derive_magnetic_groups();
+  const NamedGroup* find_without_overbars(const std::string& normalised) const;
   std::vector<CrystalClass> classes_;
   std::vector<std::pair<std::array<int, 10>, const CrystalClass*>> standard_counts_;
   std::vector<NamedGroup> groups_;

@@ -400,8 +400,10 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
          << " can be determined from planar bars";
       if (!d.unreadable.empty()) os << " (no bar reads " << prose(join(d.unreadable, ", "), f) << ")";
       if (d.rank_all < d.parameters - static_cast<int>(d.unreadable.size()))
-        os << "; " << (d.parameters - static_cast<int>(d.unreadable.size()) - d.rank_all)
-           << " further combination(s) cannot be separated by these candidates";
+        os << "; "
+           << counted(static_cast<std::size_t>(d.parameters - static_cast<int>(d.unreadable.size()) - d.rank_all),
+                      "further combination")
+           << " cannot be separated by these candidates";
       os << line(f);
       if (d.chosen.empty()) {
         os << bullet(f) << "no bar reads this part" << line(f) << "\n";

@@ -32,6 +32,7 @@ toml::array figures_json(const std::vector<FigureData>& figures) {
                                      {"y", y}});
       }
       panels.push_back(toml::table{{"title", p < f.panel_titles.size() ? f.panel_titles[p] : std::string()},
+                                   {"empty_because", p < f.panel_notes.size() ? f.panel_notes[p] : std::string()},
                                    {"curves", curves}});
     }
     toml::array bars;
@@ -44,6 +45,7 @@ toml::array figures_json(const std::vector<FigureData>& figures) {
                               {"note", f.note},
                               {"caption", f.caption},
                               {"panels", panels},
+                              {"own_scales", f.own_scales},
                               {"bars", bars}});
   }
   return out;

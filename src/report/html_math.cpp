@@ -1,23 +1,13 @@
 #include "report/html_math.hpp"
 
+#include "core/markup.hpp"
+
 #include <cctype>
 #include <map>
 
 namespace ts {
 
-std::string html_escape(const std::string& s) {
-  std::string out;
-  for (char c : s) {
-    switch (c) {
-    case '&': out += "&amp;"; break;
-    case '<': out += "&lt;"; break;
-    case '>': out += "&gt;"; break;
-    case '"': out += "&quot;"; break;
-    default: out += c;
-    }
-  }
-  return out;
-}
+std::string html_escape(const std::string& s) { return markup_escape(s); }
 
 namespace {
 

@@ -1,6 +1,7 @@
 // The scenario report as one self-contained HTML page (`--format html` of
-// `run` and `sample`): chain, allowed forms, Hall-bar signals, optical
-// channels and the figures inline as SVG, with formulas in HTML sub- and
+// `run` and `sample`): the summary and verdicts, then the whole report as the
+// Markdown writers print it (chain, forms, domains, Hall bars, layouts, optics,
+// observations), and the figures inline as SVG, with formulas in HTML sub- and
 // superscripts. No script, no external file, no web font: the page opens
 // offline in any browser. The footer carries the safety notes.
 #pragma once
@@ -12,8 +13,15 @@
 
 namespace ts {
 
+// What the page says about itself: the program's version, the date it was written
+// and the command that wrote it (file arguments by their names, no machine paths).
+struct HtmlStamp {
+  std::string date, command;
+};
+
 // With `observations` (a run of a scenario with [[observation]] tables, whose
 // scenario is `r`), the page also answers them.
-std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations = nullptr);
+std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations = nullptr,
+                                const HtmlStamp& stamp = {});
 
 } // namespace ts

@@ -1,8 +1,10 @@
 #include "report/report_format.hpp"
 
 #include "core/error.hpp"
+#include "core/text.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cstdio>
 #include <sstream>
 
@@ -34,7 +36,60 @@ std::size_t width(const std::string& s) {
     if ((c & 0xC0) != 0x80) ++w;
   return w;
 }
+
+// Byte offset of the code point after the first `n` code points of s (s.size() if fewer).
+std::size_t prefix_bytes(const std::string& s, std::size_t n) {
+  std::size_t w = 0;
+  for (std::size_t i = 0; i < s.size(); ++i)
+    if ((static_cast<unsigned char>(s[i]) & 0xC0) != 0x80 && w++ == n) return i;
+  return s.size();
+}
+
+// `text` in lines of at most `columns` code points, broken after a space where one
+// is, else inside the word.
+std::vector<std::string> wrap_words(std::string text, std::size_t columns) {
+  std::vector<std::string> lines;
+  columns = std::max<std::size_t>(columns, 1);
+  while (width(text) > columns) {
+    const std::size_t limit = prefix_bytes(text, columns);
+    std::size_t cut = text.rfind(' ', limit);
+    if (cut == std::string::npos || cut == 0) cut = limit; // one long word: break it
+    if (cut == 0) cut = prefix_bytes(text, 1);            // always make progress
+    lines.push_back(text.substr(0, cut));
+    while (cut < text.size() && text[cut] == ' ') ++cut;
+    text.erase(0, cut);
+  }
+  lines.push_back(text);
+  return lines;
+}
+
+std::size_t g_text_width = 0;
 } // namespace
+
+void set_text_width(std::size_t columns) { g_text_width = columns; }
+std::size_t text_width() { return g_text_width; }
+
+std::string wrap_text(const std::string& text, std::size_t columns) {
+  if (columns == 0) return text;
+  std::string out;
+  for (const std::string& line : split(text, '\n')) {
+    if (width(line) <= columns) {
+      out += line + "\n";
+      continue;
+    }
+    const std::size_t indent = std::min(line.find_first_not_of(' '), columns / 2);
+    const std::string more(indent + 2, ' ');
+    std::vector<std::string> pieces = wrap_words(line.substr(indent), columns - indent);
+    // the continuation lines are narrower by the two extra spaces: wrap them again
+    std::string rest;
+    for (std::size_t i = 1; i < pieces.size(); ++i) rest += (i > 1 ? " " : "") + pieces[i];
+    out += std::string(indent, ' ') + pieces.front() + "\n";
+    if (!rest.empty())
+      for (const auto& l : wrap_words(rest, columns - indent - 2)) out += more + l + "\n";
+  }
+  out.pop_back(); // split gave one line more than the text had newlines
+  return out;
+}
 
 std::string latex_escape(const std::string& s) {
   std::string out;
@@ -68,8 +123,96 @@ std::string section_heading(const std::string& s, Format f, int level) {
   return level <= 1 ? s + "\n" + std::string(s.size() > 70 ? 70 : s.size(), '=') + "\n" : s + "\n";
 }
 
+namespace {
+
+bool symbol_char(char c) { return (c >= '0' && c <= '9') || c == 'm' || c == '/' || c == '\'' || c == '-'; }
+
+// A Hermann-Mauguin symbol with a bar ("m-3m1'", "-4'2m'", "-1") in text mode, set as
+// $\mathrm{m\bar{3}m1'}$; everything else as it was. Text mode only: a "--" there
+// becomes "-{}-", so an option (--format) is not set as an en dash.
+std::string latex_text_mode(const std::string& text) {
+  std::string out;
+  bool math = false;
+  for (std::size_t i = 0; i < text.size(); ++i) {
+    const char c = text[i];
+    const bool escaped = i > 0 && text[i - 1] == '\\';
+    if (c == '$' && !escaped) math = !math;
+    // A long formula in a table cell or a line may break after each item of a list
+    // and after a closing parenthesis; \left( \right) would hold it in one piece.
+    if (math && !escaped && (c == ';' || c == ',' || (c == ')' && i + 1 < text.size() && text[i + 1] == ' '))) {
+      out += c;
+      out += "\\allowbreak ";
+      continue;
+    }
+    if (math && text.compare(i, 6, "\\left(") == 0) {
+      out += "\\bigl(";
+      i += 5;
+      continue;
+    }
+    if (math && text.compare(i, 7, "\\right)") == 0) {
+      out += "\\bigr)";
+      i += 6;
+      continue;
+    }
+    if (math || c == '%') {
+      if (c == '%' && !escaped && !math) { // a comment runs to the end of the line
+        const std::size_t e = text.find('\n', i);
+        out += text.substr(i, e == std::string::npos ? std::string::npos : e - i);
+        if (e == std::string::npos) break;
+        i = e - 1;
+        continue;
+      }
+      out += c;
+      continue;
+    }
+    if (c == '-' && i + 1 < text.size() && text[i + 1] == '-') {
+      out += "-{}";
+      continue;
+    }
+    const bool bar_here = c == '-' && i + 1 < text.size() && std::string("1346").find(text[i + 1]) != std::string::npos;
+    if (!bar_here) {
+      out += c;
+      continue;
+    }
+    // The whole token around the bar: its start is already in `out`.
+    std::size_t start = i;
+    while (start > 0 && symbol_char(text[start - 1]) && text[start - 1] != '-') --start;
+    std::size_t end = i;
+    while (end < text.size() && symbol_char(text[end])) ++end;
+    const std::string token = text.substr(start, end - start);
+    auto word_char = [](char ch) {
+      return std::isalnum(static_cast<unsigned char>(ch)) || ch == '\\' || ch == '_' || ch == '.' || ch == '^';
+    };
+    const bool bounded = (start == 0 || !word_char(text[start - 1])) && (end == text.size() || !word_char(text[end]));
+    const bool lone = token.size() == 2 || (token.size() == 3 && token[2] == '\'');
+    const bool group_like = token.find('m') != std::string::npos || token.find('\'') != std::string::npos || lone;
+    if (!bounded || !group_like || token.find("--") != std::string::npos || token.back() == '-') {
+      out += c;
+      continue;
+    }
+    out.erase(out.size() - (i - start));
+    std::string barred;
+    for (std::size_t k = 0; k < token.size(); ++k) {
+      if (token[k] == '-' && k + 1 < token.size()) {
+        barred += "\\bar{" + std::string(1, token[k + 1]) + "}";
+        ++k;
+      } else {
+        barred += token[k];
+      }
+    }
+    out += "$\\mathrm{" + barred + "}$";
+    i = end - 1;
+  }
+  return out;
+}
+
+} // namespace
+
 std::string finish(std::string text, Format f) {
   if (f != Format::latex) return text;
+  // \sloppy in a group: long symbols and ids break a line early rather than run into
+  // the margin, in this fragment only.
+  text = "{\\sloppy\n" + latex_text_mode(text) + "\\par}\n";
   static const std::pair<const char*, const char*> map[] = {
       {"∥", "\\ensuremath{\\parallel}"}, {"⊥", "\\ensuremath{\\perp}"},   {"×", "\\ensuremath{\\times}"},
       {"→", "\\ensuremath{\\to}"},       {"·", "\\ensuremath{\\cdot}"},    {"ω", "\\ensuremath{\\omega}"},
@@ -136,30 +279,127 @@ std::string latex_cell(const std::string& s) {
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows, Format f) {
   std::ostringstream os;
   if (f == Format::latex) {
-    os << "\\begin{tabular}{" << std::string(header.size(), 'l') << "}\n\\hline\n";
-    for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << latex_cell(header[i]);
-    os << " \\\\\n\\hline\n";
-    for (const auto& r : rows) {
-      for (std::size_t i = 0; i < r.size(); ++i) os << (i ? " & " : "") << latex_cell(r[i]);
-      os << " \\\\\n";
+    // A table wider than the text block gets paragraph columns for its long cells,
+    // ragged right, sharing what the short columns leave of \linewidth. Widths are
+    // estimated from characters (about 70 to a line of 10 pt text), rows end with
+    // \tabularnewline because \raggedright redefines \\.
+    // Widths in printed characters: a command name, braces and math marks take no room.
+    auto printed = [](const std::string& c) {
+      std::size_t n = 0;
+      for (std::size_t k = 0; k < c.size(); ++k) {
+        if (c[k] == '\\') {
+          while (k + 1 < c.size() && std::isalpha(static_cast<unsigned char>(c[k + 1]))) ++k;
+          continue;
+        }
+        if (c[k] == '{' || c[k] == '}' || c[k] == '$' || c[k] == '^' || c[k] == '_') continue;
+        if ((static_cast<unsigned char>(c[k]) & 0xC0) != 0x80) ++n;
+      }
+      return n;
+    };
+    std::vector<std::size_t> longest(header.size(), 0), longest_word(header.size(), 0);
+    for (std::size_t i = 0; i < header.size(); ++i) {
+      longest[i] = printed(header[i]);
+      for (const auto& word : split(header[i], ' ')) longest_word[i] = std::max(longest_word[i], printed(word));
     }
-    os << "\\hline\n\\end{tabular}\n";
+    for (const auto& r : rows)
+      for (std::size_t i = 0; i < r.size() && i < longest.size(); ++i) {
+        longest[i] = std::max(longest[i], printed(r[i]));
+        for (const auto& word : split(r[i], ' ')) longest_word[i] = std::max(longest_word[i], printed(word));
+      }
+    constexpr double kLine = 64, kShort = 12, kSeparation = 0.035;
+    double used = 0, wide = 0;
+    for (std::size_t x : longest) {
+      if (x <= kShort) used += x / kLine + kSeparation;
+      else wide += static_cast<double>(x);
+    }
+    const bool fits = used * kLine + wide <= 0.92 * kLine;
+    // Each paragraph column gets room for its longest word, and what is left of the
+    // line in proportion to its text.
+    double budget = 0.92 - used, least = 0;
+    for (std::size_t i = 0; i < header.size(); ++i)
+      if (longest[i] > kShort) {
+        budget -= kSeparation;
+        least += static_cast<double>(longest_word[i]) / kLine + 0.02;
+      }
+    const double extra = std::max(0.0, budget - least);
+    std::string columns;
+    std::vector<bool> paragraph(header.size(), false);
+    for (std::size_t i = 0; i < header.size(); ++i) {
+      if (fits || longest[i] <= kShort) {
+        columns += 'l';
+        continue;
+      }
+      const double share = static_cast<double>(longest_word[i]) / kLine + 0.02 + extra * static_cast<double>(longest[i]) / wide;
+      char buf[48];
+      std::snprintf(buf, sizeof buf, "p{%.2f\\linewidth}", share);
+      columns += buf;
+      paragraph[i] = true;
+    }
+    auto cell = [&](const std::vector<std::string>& r, std::size_t i) {
+      const std::string c = i < r.size() ? latex_cell(r[i]) : "";
+      return paragraph[i] ? "\\raggedright " + c : c;
+    };
+    // A tabular cannot break across pages: a long table is set as several, each with
+    // its header, of at most kRows rows.
+    constexpr std::size_t kRows = 36;
+    for (std::size_t first = 0; first < rows.size() || first == 0; first += kRows) {
+      os << (first ? "\n" : "") << "\\noindent\\begin{tabular}{" << columns << "}\n\\hline\n";
+      for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << cell(header, i);
+      os << " \\tabularnewline\n\\hline\n";
+      for (std::size_t k = first; k < rows.size() && k < first + kRows; ++k) {
+        for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << cell(rows[k], i);
+        os << " \\tabularnewline\n";
+      }
+      os << "\\hline\n\\end{tabular}\n";
+      if (rows.empty()) break;
+    }
     return os.str();
   }
   std::vector<std::size_t> w(header.size(), 0);
   for (std::size_t i = 0; i < header.size(); ++i) w[i] = width(header[i]);
   for (const auto& r : rows)
     for (std::size_t i = 0; i < r.size() && i < w.size(); ++i) w[i] = std::max(w[i], width(r[i]));
+  // A text table wider than the terminal narrows its widest columns one step at a
+  // time (a column keeps its longest word, up to 24 characters, and at least 8) and
+  // wraps their cells onto continuation lines.
+  const std::size_t limit = f == Format::text ? text_width() : 0;
+  auto total = [&] {
+    std::size_t t = 2 * w.size();
+    for (std::size_t x : w) t += x;
+    return t;
+  };
+  std::vector<std::size_t> narrowest(w.size(), 8);
+  for (const auto& r : rows)
+    for (std::size_t i = 0; i < r.size() && i < w.size(); ++i)
+      for (const auto& word : split(r[i], ' ')) narrowest[i] = std::max(narrowest[i], std::min<std::size_t>(width(word), 24));
+  while (limit > 0 && total() > limit) {
+    std::size_t widest = w.size();
+    for (std::size_t i = 0; i < w.size(); ++i)
+      if (w[i] > narrowest[i] && (widest == w.size() || w[i] > w[widest])) widest = i;
+    if (widest == w.size()) break; // every column at its narrowest: the line stays long
+    --w[widest];
+  }
   auto line = [&](const std::vector<std::string>& r) {
-    std::string s = f == Format::markdown ? "| " : "  ";
+    std::vector<std::vector<std::string>> cells(w.size());
+    std::size_t height = 1;
     for (std::size_t i = 0; i < w.size(); ++i) {
-      std::string cell = i < r.size() ? r[i] : "";
-      s += cell + std::string(w[i] - width(cell), ' ');
-      if (i + 1 < w.size()) s += f == Format::markdown ? " | " : "  ";
+      const std::string cell = i < r.size() ? r[i] : "";
+      cells[i] = limit > 0 ? wrap_words(cell, w[i]) : std::vector<std::string>{cell};
+      height = std::max(height, cells[i].size());
     }
-    if (f == Format::markdown) s += " |";
-    else while (!s.empty() && s.back() == ' ') s.pop_back();
-    return s + "\n";
+    std::string out;
+    for (std::size_t h = 0; h < height; ++h) {
+      std::string s = f == Format::markdown ? "| " : "  ";
+      for (std::size_t i = 0; i < w.size(); ++i) {
+        const std::string cell = h < cells[i].size() ? cells[i][h] : "";
+        s += cell + std::string(w[i] - std::min(w[i], width(cell)), ' ');
+        if (i + 1 < w.size()) s += f == Format::markdown ? " | " : "  ";
+      }
+      if (f == Format::markdown) s += " |";
+      else while (!s.empty() && s.back() == ' ') s.pop_back();
+      out += s + "\n";
+    }
+    return out;
   };
   os << line(header);
   if (f == Format::markdown) {

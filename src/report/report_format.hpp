@@ -14,6 +14,15 @@ const char* format_name(Format f);
 // A section heading: level 1 is the report title, 2 a section, 3 a subsection.
 std::string section_heading(const std::string& s, Format f, int level = 2);
 
+// The width of text reports in columns, 0 for none (files and pipes: lines as long as
+// they come). The CLI sets it from --width or the terminal before a writer runs; text
+// tables then wrap their widest columns to fit, and wrap_text breaks the other lines.
+void set_text_width(std::size_t columns);
+std::size_t text_width();
+// Every line longer than `columns` broken at spaces, the continuation indented by two
+// more than the line; 0 leaves the text as it is.
+std::string wrap_text(const std::string& text, std::size_t columns);
+
 // A simple aligned table for text and Markdown, or a LaTeX tabular.
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
                  Format f);

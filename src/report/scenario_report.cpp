@@ -299,7 +299,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     std::vector<std::string> shown;
     for (const auto& l : lost) shown.push_back(code(l, f));
     os << (f == Format::markdown ? "- " : "  ") << "step " << i << " removes " << lost.size() << " of "
-       << r.chain[i - 1].group.order() << " operations"
+       << counted(r.chain[i - 1].group.order(), "operation")
        << (lost.size() <= 16 ? ": " + join(shown, ", ") : " (all listed in --format json)")
        << (f == Format::latex ? "\\\\" : "") << "\n";
   }
@@ -321,9 +321,9 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     const char* end = f == Format::latex ? "\\\\\n" : "\n";
     if (on.empty()) os << bullet << "nothing new: every part allowed now was allowed before" << end;
     for (const auto& n : on) os << bullet << "switched on: " << n << end;
-    os << bullet << "allowed before and after: " << (allowed.empty() ? "none" : std::to_string(allowed.size()) + " parts")
+    os << bullet << "allowed before and after: " << (allowed.empty() ? "none" : counted(allowed.size(), "part"))
        << end << bullet << "forbidden after the last step: "
-       << (forbidden.empty() ? "none" : std::to_string(forbidden.size()) + " parts") << end
+       << (forbidden.empty() ? "none" : counted(forbidden.size(), "part")) << end
        << bullet << "the details of every part follow" << end << "\n";
   }
 
