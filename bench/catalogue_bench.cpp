@@ -438,6 +438,27 @@ int run(const Args& args) {
     print_figure("layout: 12 responses, 26 low-index directions, 2 field geometries", duration_text(tl.median), "< 1 s",
                  verdict(tl.median < 1.0));
   }
+  // ---- light-driven: pump-probe across a spin reorientation, photocurrents of a film -------
+  {
+    Scenario sc;
+    sc.group = "mmm";
+    sc.z = "[001]";
+    sc.responses = {"inverse-faraday", "photogalvanic"};
+    PumpProbeSpec pp;
+    pp.azimuth = "rotating";
+    pp.incidence = "45";
+    for (const char* moment : {"[100]", "[001]", "[010]"}) {
+      PumpPhaseSpec ph;
+      ph.steps.push_back(parse_lowering_option(std::string("moment:") + moment, "bench"));
+      pp.phases.push_back(ph);
+    }
+    sc.pump_probe.push_back(pp);
+    PhotocurrentSpec pc;
+    sc.photocurrents.push_back(pc);
+    Timing t = time_repeated(R, [&] { (void)run_scenario(sc); });
+    print_figure("pump-probe: 3 phases x 4 polarisations, oblique and rotating, with photocurrents",
+                 duration_text(t.median));
+  }
   print_inverse_figures(R);
 
   // ---- memory and summary ---------------------------------------------------------------

@@ -6,6 +6,7 @@
 #include "geometry/optics_setup_text.hpp"
 #include "report/series_text.hpp"
 #include "report/html_math.hpp"
+#include "report/pump_report.hpp"
 
 #include <sstream>
 
@@ -164,6 +165,31 @@ void optics_section(const ScenarioResult& r, std::ostream& os) {
   }
 }
 
+// Pump-probe and photocurrent questions: the tables the text report prints.
+void light_section(const ScenarioResult& r, std::ostream& os) {
+  if (r.pump_probe.empty() && r.photocurrents.empty()) return;
+  os << "<h2>Light that drives the order and currents</h2>\n";
+  auto questions = pump_probe_tables(r, Format::text);
+  for (auto& q : photocurrent_tables(r, Format::text)) questions.push_back(std::move(q));
+  for (const auto& [heading, tables] : questions) {
+    os << "<h3>" << esc(heading) << "</h3>\n";
+    for (const auto& t : tables) {
+      if (!t.title.empty()) os << "<p><b>" << esc(t.title) << "</b></p>\n";
+      if (!t.note.empty()) os << "<p>" << esc(t.note) << "</p>\n";
+      if (t.header.empty()) continue;
+      os << "<table><tr>";
+      for (const auto& h : t.header) os << "<th>" << esc(h) << "</th>";
+      os << "</tr>\n";
+      for (const auto& row : t.rows) {
+        os << "<tr>";
+        for (const auto& c : row) os << "<td>" << esc(c) << "</td>";
+        os << "</tr>\n";
+      }
+      os << "</table>\n";
+    }
+  }
+}
+
 void figures_section(const ScenarioResult& r, std::ostream& os) {
   std::vector<FigureData> figures = scenario_figures(r, figure_settings(r.scenario.figures));
   if (figures.empty()) return;
@@ -207,6 +233,7 @@ std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* o
   forms_section(r, os);
   bars_section(r, os);
   optics_section(r, os);
+  light_section(r, os);
   if (observations) observations_section(*observations, os);
   figures_section(r, os);
   os << "<footer>\n<p class=\"warn\">Safety</p>\n<p>Optical experiments of this kind use class 3B and class 4 lasers, "
