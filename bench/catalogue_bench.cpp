@@ -441,7 +441,7 @@ int run(const Args& args) {
   // ---- light-driven: pump-probe across a spin reorientation, photocurrents of a film -------
   {
     Scenario sc;
-    sc.group = "mmm";
+    sc.group = "mm2"; // polar: photocurrents flow; each moment direction gives a magnetic phase
     sc.z = "[001]";
     sc.responses = {"inverse-faraday", "photogalvanic"};
     PumpProbeSpec pp;
@@ -456,8 +456,7 @@ int run(const Args& args) {
     PhotocurrentSpec pc;
     sc.photocurrents.push_back(pc);
     Timing t = time_repeated(R, [&] { (void)run_scenario(sc); });
-    print_figure("pump-probe: 3 phases x 4 polarisations, oblique and rotating, with photocurrents",
-                 duration_text(t.median));
+    print_figure("pump-probe (3 phases) and photocurrents, mm2, 4 polarisations", duration_text(t.median));
   }
   print_inverse_figures(R);
 
