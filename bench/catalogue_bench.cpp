@@ -498,6 +498,25 @@ int run(const Args& args) {
     Scenario torques = load_scenario(std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/magnetised-film-harmonic-hall.toml");
     Timing tt = time_repeated(R, [&] { (void)run_scenario(torques); });
     print_figure("run: harmonic Hall to third order in m (rank-6 expansion), sums and plan", duration_text(tt.median));
+  // ---- light-driven: pump-probe across a spin reorientation, photocurrents of a film -------
+  {
+    Scenario sc;
+    sc.group = "mm2"; // polar: photocurrents flow; each moment direction gives a magnetic phase
+    sc.z = "[001]";
+    sc.responses = {"inverse-faraday", "photogalvanic"};
+    PumpProbeSpec pp;
+    pp.azimuth = "rotating";
+    pp.incidence = "45";
+    for (const char* moment : {"[100]", "[001]", "[010]"}) {
+      PumpPhaseSpec ph;
+      ph.steps.push_back(parse_lowering_option(std::string("moment:") + moment, "bench"));
+      pp.phases.push_back(ph);
+    }
+    sc.pump_probe.push_back(pp);
+    PhotocurrentSpec pc;
+    sc.photocurrents.push_back(pc);
+    Timing t = time_repeated(R, [&] { (void)run_scenario(sc); });
+    print_figure("pump-probe (3 phases) and photocurrents, mm2, 4 polarisations", duration_text(t.median));
   }
   print_inverse_figures(R);
 

@@ -53,7 +53,8 @@ void setup_sample(CLI::App& app) {
     SampleOptions sample;
     ReportOptions report;
     std::string fractions;
-    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr, orders;
+    std::vector<std::string> bars, layouts, rosette, layout_directions, layout_fields, shg, shg_channels, kerr,
+        pump_probe, photocurrent, pump_polarisations, orders;
     bool shg_local_field = false;
     std::string shg_indices;
     std::string waveform = "sine";
@@ -108,12 +109,45 @@ void setup_sample(CLI::App& app) {
                   "magneto-optics for a MAGNETISATION direction (repeatable): in-plane, normal, any, [uvw] or "
                   "in-plane:ANGLE; reports the Kerr geometries the group allows and the quadratic terms")
       ->allow_extra_args(false);
+  cmd->add_option("--pump-probe", o->pump_probe,
+                  "pump-probe on the final group INCIDENCE[:AZIMUTH] (repeatable): the torque of each pump "
+                  "polarisation on the last moment step's direction and which Kerr/Faraday probe sees it");
+  cmd->add_option("--photocurrent", o->photocurrent,
+                  "in-plane photocurrents INCIDENCE[:AZIMUTH] (repeatable) per pump polarisation, and the "
+                  "electrode pair that reads them");
+  cmd->add_option("--pump-polarisations", o->pump_polarisations,
+                  "pump polarisations for --pump-probe and --photocurrent, e.g. circular+,circular-,linear:30 "
+                  "(default circular+,circular-,linear,elliptical)")
+      ->delimiter(',');
   add_figure_options(*cmd, o->figures);
   add_report_options(*cmd, o->report);
   add_output_options(*cmd, o->out, true);
   cmd->callback([o] {
     check_brief(o->report, o->out);
     Scenario sc = scenario_from_options(o->sample);
+    // "45" or "45:rotating": the angle of incidence and the sample azimuth of a pump.
+    auto beam = [&](PumpBeamSpec& spec, const std::string& option, const std::string& text) {
+      const std::size_t colon = text.find(':');
+      spec.incidence = text.substr(0, colon);
+      spec.azimuth = colon == std::string::npos ? std::string("rotating") : text.substr(colon + 1);
+      spec.name = option.substr(2) + " (" + text + ")";
+      spec.polarisations = o->pump_polarisations;
+      spec.where = option + " " + text;
+      spec.bad_value = ErrorKind::usage;
+    };
+    for (const auto& p : o->pump_probe) {
+      PumpProbeSpec spec;
+      beam(spec, "--pump-probe", p);
+      sc.pump_probe.push_back(spec);
+    }
+    for (const auto& p : o->photocurrent) {
+      PhotocurrentSpec spec;
+      beam(spec, "--photocurrent", p);
+      sc.photocurrents.push_back(spec);
+    }
+    if (!o->pump_polarisations.empty() && o->pump_probe.empty() && o->photocurrent.empty())
+      fail(ErrorKind::usage, "--pump-polarisations needs --pump-probe or --photocurrent", "--pump-polarisations",
+           "--photocurrent 45 --pump-polarisations circular+,circular-");
     apply_figure_options(o->figures, sc);
     // Optical questions without --response ask for the responses they read.
     const bool default_responses = sc.responses.empty() && sc.tensors.empty();
@@ -135,6 +169,8 @@ void setup_sample(CLI::App& app) {
       fail(ErrorKind::usage, "local-field factors need --shg", o->shg_local_field ? "--shg-local-field" : "--shg-indices",
            "--shg reflection:45 --shg-indices 1,2.2+0.01i,2.3+0.05i");
     if (!o->shg.empty() && default_responses) sc.responses.push_back("electric-dipole-shg");
+    if (!o->pump_probe.empty() && default_responses) sc.responses.push_back("inverse-faraday");
+    if (!o->photocurrent.empty() && default_responses) sc.responses.push_back("photogalvanic");
     apply_fractions_option(o->fractions, sc);
     apply_order_options(o->orders, sc);
     // Neither given: the empty group symbol is refused by the catalogue with its own message.

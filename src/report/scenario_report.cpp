@@ -8,6 +8,7 @@
 #include "report/json_text.hpp"
 #include "report/figure_report.hpp"
 #include "report/optics_report.hpp"
+#include "report/pump_report.hpp"
 
 #include <algorithm>
 #include <sstream>
@@ -262,6 +263,8 @@ toml::table scenario_json(const ScenarioResult& r) {
   root.insert("plans", plans_json(r));
   if (!r.shg.empty()) root.insert("shg", shg_json(r));
   if (!r.kerr.empty()) root.insert("magneto_optics", kerr_json(r));
+  if (!r.pump_probe.empty()) root.insert("pump_probe", pump_probe_json(r));
+  if (!r.photocurrents.empty()) root.insert("photocurrents", photocurrent_json(r));
   if (sc.figures.present) root.insert("figures", figures_json(scenario_figures(r, figure_settings(sc.figures))));
   return root;
 }
@@ -425,7 +428,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     }
   }
   os << write_bars(r, f) << write_probe_sums(r, f) << write_plans(r, f) << write_layouts(r, f) << write_shg(r, f)
-     << write_kerr(r, f);
+     << write_kerr(r, f) << write_light_driven(r, f);
   return finish(os.str(), f);
 }
 

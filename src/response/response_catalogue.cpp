@@ -31,7 +31,8 @@ const std::vector<std::string>& response_statuses() {
 
 const std::vector<std::string>& response_index_roles() {
   static const std::vector<std::string> v{"E",  "j", "h", "B",     "M",      "S",          "Js",   "P",    "H", "light",
-                                          "k",  "g", "Q", "stress", "strain", "indicatrix", "heat", "gradT", "joule"};
+                                          "k",  "g", "Q", "stress", "strain", "indicatrix", "heat", "gradT", "joule",
+                                          "helicity"};
   return v;
 }
 

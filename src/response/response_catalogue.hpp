@@ -113,7 +113,7 @@ private:
 const std::vector<std::string>& response_harmonics(); // 1ω, 2ω, 3ω, DC, 2ω+DC, static
 const std::vector<std::string>& response_drives();    // E, B, M, j, H, gradT, light, stress, strain, temperature
 const std::vector<std::string>& response_statuses();  // checked, title checked, from memory, common practice
-const std::vector<std::string>& response_index_roles(); // E, j, h, B, M, S, Js, P, H, light, k, g, Q, ..., joule
+const std::vector<std::string>& response_index_roles(); // E, j, h, B, M, S, Js, P, H, light, k, g, Q, ..., joule, helicity
 const char* drive_kind_name(DriveKind k);              // "current", "field", ""
 // "Anomalous Hall" -> "anomalous-hall".
 std::string normalise_response_key(const std::string& s);

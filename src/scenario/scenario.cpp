@@ -74,14 +74,14 @@ LoweringKind parse_lowering_kind(const std::string& text, const std::string& whe
   fail(bad_value, "unknown lowering kind '" + text + "'", where, kinds_help);
 }
 
-LoweringStep parse_lowering_option(const std::string& text, const std::string& where) {
+LoweringStep parse_lowering_option(const std::string& text, const std::string& where, ErrorKind bad_value) {
   std::size_t colon = text.find(':');
   if (colon == std::string::npos)
-    fail(ErrorKind::usage, "'" + text + "' is not KIND:VALUE", where,
+    fail(bad_value, "'" + text + "' is not KIND:VALUE", where,
          "e.g. strain:[001], field:[1-10], shear:[100],[010], subgroup:mm2, magnetic-group:4'/m'm'm, tilts:a0a0c-");
   LoweringStep s;
-  s.bad_value = ErrorKind::usage;
-  s.kind = parse_lowering_kind(text.substr(0, colon), where, ErrorKind::usage);
+  s.bad_value = bad_value;
+  s.kind = parse_lowering_kind(text.substr(0, colon), where, bad_value);
   std::string value = text.substr(colon + 1);
   s.where = where;
   if (s.kind == LoweringKind::magnetic_group || s.kind == LoweringKind::subgroup || s.kind == LoweringKind::tilts) {
@@ -89,7 +89,7 @@ LoweringStep parse_lowering_option(const std::string& text, const std::string& w
   } else if (s.kind == LoweringKind::shear) {
     std::size_t comma = value.find("],");
     if (comma == std::string::npos)
-      fail(ErrorKind::usage, "a shear needs two directions", where, "shear:[100],[010]");
+      fail(bad_value, "a shear needs two directions", where, "shear:[100],[010]");
     s.along = value.substr(0, comma + 1);
     s.second = value.substr(comma + 2);
   } else {
@@ -251,14 +251,6 @@ void read_layouts(const toml::table& root, const std::string& path, Scenario& sc
   }
 }
 // An angle key that may be a whole number of degrees or a word ("any", "rotating").
-std::string get_angle(const toml::table& t, const char* key, const std::string& file, const char* valid) {
-  auto node = t.get(key);
-  if (!node) return {};
-  if (auto v = node->value_exact<int64_t>()) return std::to_string(*v);
-  if (auto v = node->value<std::string>()) return *v;
-  fail(ErrorKind::bad_file, std::string("'") + key + "' must be whole degrees or a word", at(file, node->source()), valid);
-}
-
 // A refractive index key: a TOML number or a string such as "2.2+0.01i".
 std::optional<RefractiveIndex> get_index(const toml::table& t, const char* key, bool ambient, const std::string& file) {
   auto node = t.get(key);
@@ -416,7 +408,7 @@ Scenario parse_scenario(const std::string& text, const std::string& path) {
 Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   Scenario sc;
   sc.source = path;
-  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation", "shg", "kerr", "figures",
+  check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation", "shg", "kerr", "pump_probe", "photocurrent", "figures",
               "expansion"},
              path, "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
@@ -518,6 +510,7 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   read_shg(root, path, sc);
   read_kerr(root, path, sc);
   read_expansion(root, path, sc);
+  read_pump_tables(root, path, sc);
   read_figures(root, path, sc);
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");

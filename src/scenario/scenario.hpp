@@ -98,6 +98,40 @@ struct KerrSpec {
   ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
 };
 
+// A magnetic phase of a pump-probe question (docs/optics.md): lowering steps
+// applied to the last group of the chain (a spin reorientation is two sibling
+// phases of the same paramagnetic group), and the order vector the pump turns.
+struct PumpPhaseSpec {
+  std::string label;
+  std::vector<LoweringStep> steps; // empty: the last group of the chain itself
+  std::string order;               // crystal direction [uvw]; empty: the last moment step's direction
+  std::string where;
+};
+
+// A pump beam (docs/optics.md): angle of incidence, sample azimuth and the
+// polarisations asked about.
+struct PumpBeamSpec {
+  std::string name;
+  std::string incidence = "0";            // degrees from the normal, multiple of 15, 0-75
+  std::string azimuth = "rotating";       // or a fixed sample azimuth (multiple of 15)
+  std::vector<std::string> polarisations; // empty: circular+, circular-, linear, elliptical
+  std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
+};
+
+// A pump beam on magnetic phases: the torque it exerts and which Kerr or
+// Faraday probe reads the precession, per phase.
+struct PumpProbeSpec : PumpBeamSpec {
+  std::vector<PumpPhaseSpec> phases; // empty: the chain's last group
+};
+
+// Photocurrents of a film under a pump beam: the in-plane current per
+// polarisation and the electrode pair that reads it. Most in-plane currents
+// need oblique incidence, hence the default.
+struct PhotocurrentSpec : PumpBeamSpec {
+  PhotocurrentSpec() { incidence = "45"; }
+};
+
 // Figures of the scenario (docs/figures.md): illustrative parameter values,
 // the illustrative angle of incidence for setups whose θ is a variable, and
 // where and in which formats to write them ([figures] table, --figures).
@@ -136,6 +170,8 @@ struct Scenario {
   std::vector<ObservationRequest> observations; // [[observation]] tables
   std::vector<ShgSpec> shg;                      // [[shg]] tables
   std::vector<KerrSpec> kerr;                    // [[kerr]] tables
+  std::vector<PumpProbeSpec> pump_probe;         // [[pump_probe]] tables
+  std::vector<PhotocurrentSpec> photocurrents;   // [[photocurrent]] tables
   FigureSpec figures;                            // [figures] table
 };
 
@@ -146,7 +182,8 @@ Scenario parse_scenario(const std::string& text, const std::string& path);
 LoweringKind parse_lowering_kind(const std::string& text, const std::string& where, ErrorKind bad_value);
 const char* lowering_kind_name(LoweringKind k);
 // "strain:[001]", "field:[1-10]", "shear:[100],[010]", "magnetic-group:4'/m'm'm", "tilts:a0a0c-"
-LoweringStep parse_lowering_option(const std::string& text, const std::string& where);
+LoweringStep parse_lowering_option(const std::string& text, const std::string& where,
+                                   ErrorKind bad_value = ErrorKind::usage);
 // "--bar [100]:in-plane" -> current "[100]", field "in-plane" (the field part is optional).
 BarSpec parse_bar_option(const std::string& text, const std::string& where);
 // "--layout second-order-conductivity:2" -> response and harmonic.

@@ -8,6 +8,7 @@
 #include "lowering/structure_file.hpp"
 #include "response/response_catalogue.hpp"
 #include "response/response_expansion.hpp"
+#include "scenario/light_run.hpp"
 #include "tensor/param_tensor.hpp"
 
 #include <algorithm>
@@ -703,8 +704,23 @@ ScenarioResult run_scenario(const Scenario& sc) {
   }
   for (const auto& spec : sc.shg) res.shg.push_back(run_shg(spec, res, responses));
   for (const auto& spec : sc.kerr) res.kerr.push_back(run_kerr(spec, res, lattice));
+  for (const auto& spec : sc.pump_probe) res.pump_probe.push_back(run_pump_probe(spec, res));
+  for (const auto& spec : sc.photocurrents) res.photocurrents.push_back(run_photocurrent(spec, res));
   return res;
 }
+
+PointGroup apply_lowering_step(const PointGroup& g, const LoweringStep& s, const std::string& system,
+                               const LatticeMetric& m) {
+  std::string ignored;
+  return lower(g, s, system, m, &ignored);
+}
+
+Vec3 lowering_direction(const std::string& text, const std::string& system, LatticeKind lattice,
+                        const LatticeMetric& m, const std::string& where) {
+  return step_direction(text, system, lattice, m, where);
+}
+
+std::string lowering_step_label(const LoweringStep& s) { return step_label(s); }
 
 const char* planar_reading_text(PlanarReading r) {
   switch (r) {

@@ -9,6 +9,7 @@
 #include "geometry/layout_design.hpp"
 #include "geometry/optics_geometry.hpp"
 #include "geometry/optics_kerr.hpp"
+#include "geometry/optics_pump.hpp"
 #include "geometry/sample_frame.hpp"
 #include "group/identify.hpp"
 #include "lowering/domains.hpp"
@@ -156,6 +157,64 @@ struct KerrResult {
   bool magnetisation_outside_group = false;
 };
 
+// A vector response (effective field, current) per sample axis.
+using VectorTerms = std::array<std::vector<FourierTerm>, 3>;
+
+// One pump polarisation in one phase: the effective field of each pump part,
+// its torque l0 × H along the two deviation axes, and whether some part
+// exerts a torque along each.
+struct PumpDrive {
+  std::string polarisation;
+  std::vector<VectorTerms> field;                               // per pump part
+  std::vector<std::array<std::vector<FourierTerm>, 2>> torque;  // per pump part, per deviation axis
+  std::array<bool, 2> drives{};
+};
+
+// A magneto-optic probe of the precession: whether it reads, to first order,
+// a turn of the order vector along each deviation axis (static reading) or the
+// dynamic moment l0 × δl that accompanies it, and whether it sees the
+// precession each pump polarisation starts.
+struct ProbeView {
+  std::string probe, reads;
+  std::array<bool, 2> order{}, moment{};
+  std::vector<bool> sees; // per polarisation
+};
+
+struct PumpPhase {
+  std::string label, where;
+  std::string group;          // the phase's magnetic group, for people
+  std::string order_label;    // "[100] = +x"
+  int order_axis = 2, order_sign = 1; // sample axis of the order vector
+  std::array<int, 2> deviation_axes{};
+  std::vector<std::string> part_titles; // per pump part: "inverse-faraday: inverse Faraday effect, i-type"
+  std::vector<bool> helicity_odd;       // per pump part: driven by the light's spin (reverses with helicity)
+  std::vector<AllowedForm> forms;       // per pump part, in the phase group (sample frame)
+  AllowedForm k_order, k_moment;        // how the gyration vector follows δl (twisted law) and a moment
+  std::vector<PumpDrive> drives;        // per polarisation
+  std::vector<ProbeView> probes;
+};
+
+struct PumpProbeResult {
+  PumpSetup setup;
+  std::vector<PumpPhase> phases;
+};
+
+// The in-plane current of one polarisation: per photocurrent part, and which
+// electrode pair (along sample x, along sample y) reads the whole current and
+// its helicity-odd part.
+struct PhotocurrentRow {
+  std::string polarisation;
+  std::vector<VectorTerms> current; // per part
+  std::array<bool, 2> pair_reads{}, odd_pair_reads{};
+};
+
+struct PhotocurrentResult {
+  PumpSetup setup;
+  std::vector<std::size_t> parts;  // into ScenarioResult::parts (final group)
+  std::vector<bool> helicity_odd;  // per part
+  std::vector<PhotocurrentRow> rows;
+};
+
 struct ScenarioResult {
   Scenario scenario;
   std::string parent_note;   // e.g. "m-3m taken as non-magnetic: m-3m1'"
@@ -176,6 +235,8 @@ struct ScenarioResult {
   std::vector<LayoutResult> layouts;
   std::vector<ShgResult> shg;
   std::vector<KerrResult> kerr;
+  std::vector<PumpProbeResult> pump_probe;
+  std::vector<PhotocurrentResult> photocurrents;
 };
 
 ScenarioResult run_scenario(const Scenario& scenario);

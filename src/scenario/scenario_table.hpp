@@ -14,4 +14,9 @@ namespace ts {
 // `path` names the table in messages, and relative structure files are read from its folder.
 Scenario scenario_from_table(const toml::table& root, const std::string& path);
 
+// An angle key: whole degrees (an integer) or a word such as "rotating" or "any".
+std::string get_angle(const toml::table& t, const char* key, const std::string& file, const char* valid);
+// The [[pump_probe]] and [[photocurrent]] tables (pump_table.cpp).
+void read_pump_tables(const toml::table& root, const std::string& path, Scenario& sc);
+
 } // namespace ts
