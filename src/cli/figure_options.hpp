@@ -77,11 +77,18 @@ inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, con
   if (formats.empty()) formats = {FigureFormat::svg, FigureFormat::pdf};
   std::vector<FigureData> figures;
   if (!spec.directory.empty()) figures = scenario_figures(r, figure_settings(spec));
-  if (out.format == "html") emit(out, write_scenario_html(r, observations));
-  else if (observations) emit(out, write_scenario_with_observations(*observations, parse_format(out.format)));
-  else emit(out, write_scenario(r, parse_format(out.format)));
+  std::string report;
+  if (out.format == "html") report = write_scenario_html(r, observations);
+  else if (observations) report = write_scenario_with_observations(*observations, parse_format(out.format));
+  else report = write_scenario(r, parse_format(out.format));
+  // The report and the figures are committed together: a figure that cannot be
+  // written leaves the old report in place as well.
+  OutputBatch batch;
+  std::vector<std::string> written;
+  if (!spec.directory.empty()) written = write_figures(figures, spec.directory, formats, &batch);
+  batch.add(out.output, std::move(report));
+  batch.commit();
   if (spec.directory.empty()) return;
-  std::vector<std::string> written = write_figures(figures, spec.directory, formats);
   std::cerr << "tensorsieve: wrote " << figures.size() << " figure(s), " << written.size() << " files, into "
             << spec.directory << "\n";
 }
