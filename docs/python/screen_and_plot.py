@@ -93,4 +93,4 @@ try:
     print("plot written to", os.path.join(folder, "shg.png"))
 except ImportError:
     for deg in (0, 45, 90):
-        print(f"phi = {deg:3d} deg: |P|^2 = {float(intensity(sympy.pi * deg / 180)):.3f}")
+        print(f"phi = {deg:3d} deg: |P|^2 = {float(intensity(float(sympy.pi * deg / 180))):.3f}")
