@@ -145,9 +145,9 @@ TEST_CASE("broken structure files give a located message and exit code 5") {
   const Case cases[] = {
       {"missing-cell.cif", "missing-cell.cif (data_missing_cell)", "missing _cell_length_c"},
       {"broken-loop.cif", "broken-loop.cif:9:1", "Wrong number of values in the loop"},
-      {"open-operations.mcif", "open-operations.mcif:10", "the stated operations do not close"},
-      {"moment-on-absent-site.mcif", "moment-on-absent-site.mcif:15", "site 'Fe2', which the atom sites do not list"},
-      {"moment-against-operation.mcif", "moment-against-operation.mcif:11",
+      {"open-operations.mcif", "open-operations.mcif:13", "the stated operations do not close"},
+      {"moment-on-absent-site.mcif", "moment-on-absent-site.mcif:21", "site 'Fe2', which the atom sites do not list"},
+      {"moment-against-operation.mcif", "moment-against-operation.mcif:14",
        "operation 2 (-y,x,z,+1) maps site 'Fe1' onto itself"},
       {"incommensurate.mcif", "incommensurate.mcif:9", "incommensurate (superspace) structure"},
       {"partial-occupancy.cif", "partial-occupancy.cif:11", "partial occupancy (a disordered crystal) at sites Fe1"},

@@ -440,7 +440,9 @@ sites = [ { species = "K", at = [0, "half", 0] } ]
 TEST_CASE("spglib failures come back as ts::Error naming the structure", "[structure][spglib][errors]") {
   CrystalStructure c;
   c.lattice = {{{4, 0, 0}, {0, 4, 0}, {0, 0, 4}}};
-  c.sites = {{"X", {0, 0, 0}}, {"X", {0.0001, 0, 0}}}; // 0.0004 A apart, well within symprec
+  // 4e-6 A apart: within symprec and within the tenth and hundredth of it that
+  // the search tries next.
+  c.sites = {{"X", {0, 0, 0}}, {"X", {0.000001, 0, 0}}};
   c.where = "crowded.toml:[structure]";
   try {
     find_structure_symmetry(c, 0.01);
@@ -449,6 +451,7 @@ TEST_CASE("spglib failures come back as ts::Error naming the structure", "[struc
     CHECK(e.kind() == ErrorKind::bad_file);
     CHECK(e.location() == "crowded.toml:[structure]");
     CHECK(e.problem().find("spglib") != std::string::npos);
+    CHECK(e.problem().find("tried at symprec 0.01, 0.001, 0.0001 Angstrom") != std::string::npos);
   }
   CHECK_THROWS_AS(find_structure_symmetry(c, -1), Error);
   CrystalStructure empty;

@@ -109,7 +109,7 @@ def test_errors_raise_our_class_with_the_cli_message():
     assert "closest" in caught.value.valid
     with pytest.raises(ts.Error) as broken:
         ts.structure(os.path.join(DATA, "malformed", "open-operations.mcif"))
-    assert broken.value.where.endswith("open-operations.mcif:10 (data_open_operations)")
+    assert broken.value.where.endswith("open-operations.mcif:13 (data_open_operations)")
     assert broken.value.exit_code == 5
 
 

@@ -20,18 +20,22 @@ void setup_run(CLI::App& app) {
     ReportOptions report;
     std::string file, fractions;
     std::vector<std::string> orders;
+    std::size_t max_steps = Scenario{}.max_steps;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("run", "run a scenario file: crystal, cut, lowering steps, responses, observations");
   cmd->add_option("scenario", o->file, "scenario TOML file (docs/scenarios.md)")->required();
   add_fractions_option(*cmd, o->fractions);
   add_order_option(*cmd, o->orders);
+  cmd->add_option("--max-steps", o->max_steps, "refuse a chain of more lowering steps than this")
+      ->capture_default_str();
   add_figure_options(*cmd, o->figures);
   add_report_options(*cmd, o->report);
   add_output_options(*cmd, o->out, true);
   cmd->callback([o] {
     check_brief(o->report, o->out);
     Scenario sc = load_scenario(o->file);
+    sc.max_steps = o->max_steps;
     apply_fractions_option(o->fractions, sc);
     apply_order_options(o->orders, sc);
     apply_figure_options(o->figures, sc);
@@ -60,6 +64,7 @@ void setup_sample(CLI::App& app) {
     std::string waveform = "sine";
     std::string structure_file, occupancy = "refuse";
     double symprec = StructureFileOptions{}.symprec;
+    std::size_t max_atoms = StructureFileOptions{}.max_atoms;
   };
   auto o = std::make_shared<Opts>();
   auto* cmd = app.add_subcommand("sample", "one-off scenario from options: group, cut, lowering steps, responses");
@@ -67,6 +72,8 @@ void setup_sample(CLI::App& app) {
   cmd->add_option("--structure-file", o->structure_file, "parent crystal from a CIF or mCIF file instead of a group");
   cmd->add_option("--occupancy", o->occupancy, "partial occupancy in the file: refuse (default) or ignore");
   cmd->add_option("--symprec", o->symprec, "distance tolerance for the file, Angstrom")->capture_default_str();
+  cmd->add_option("--max-atoms", o->max_atoms, "refuse a file whose cell holds more atoms than this")
+      ->capture_default_str();
   // One value per occurrence, taken as written: CLI11 would otherwise read "[V2]" as a
   // bracketed list and strip the brackets of a Jahn symbol.
   cmd->add_option("--response", o->sample.sc.responses,
@@ -186,6 +193,8 @@ void setup_sample(CLI::App& app) {
       if (!(o->symprec > 0 && o->symprec < 1))
         fail(ErrorKind::usage, "symprec out of range", "--symprec", "0 < symprec < 1 Angstrom");
       options.symprec = o->symprec;
+      if (o->max_atoms < 1) fail(ErrorKind::usage, "--max-atoms must be at least 1", "--max-atoms", "e.g. 20000");
+      options.max_atoms = o->max_atoms;
       sc.structure = read_structure_file(o->structure_file, options);
     }
     for (const auto& b : o->bars) {
@@ -198,8 +207,10 @@ void setup_sample(CLI::App& app) {
       spec.directions = o->layout_directions;
       spec.fields = o->layout_fields;
       for (const auto& a : o->rosette) {
-        bool ok = !a.empty() && a.size() < 6 && a.find_first_not_of("-0123456789") == std::string::npos &&
-                  std::stoi(a) % 15 == 0;
+        // A sign only in front, then 1 to 4 digits: "-", "15-" and "1-5" are no angles.
+        const std::size_t first_digit = !a.empty() && a[0] == '-' ? 1 : 0;
+        bool ok = a.size() > first_digit && a.size() - first_digit <= 4 &&
+                  a.find_first_not_of("0123456789", first_digit) == std::string::npos && std::stoi(a) % 15 == 0;
         if (!ok)
           fail(ErrorKind::usage, "rosette angle '" + a + "' is not a multiple of 15 degrees", "--rosette",
                "e.g. --rosette 0,30,45,90");

@@ -2,12 +2,14 @@
 #include "cli/commands.hpp"
 #include "core/error.hpp"
 #include "report/screen_report.hpp"
+#include "scenario/screen_journal.hpp"
 #include "scenario/screening.hpp"
 
 #include <unistd.h>
 
 #include <chrono>
 #include <cstdio>
+#include <iostream>
 #include <memory>
 
 namespace ts::cli {
@@ -55,6 +57,9 @@ void setup_screen(CLI::App& app) {
   cmd->add_option("--occupancy", o->occupancy, "partial occupancy: refuse (default, the row fails) or ignore");
   cmd->add_option("--symprec", o->request.options.symprec, "distance tolerance in Angstrom")->capture_default_str();
   cmd->add_option("--threads", o->threads, "worker threads (default: one per core)");
+  cmd->add_option("--max-atoms", o->request.options.max_atoms,
+                  "refuse a file whose cell holds more atoms than this")
+      ->capture_default_str();
   cmd->add_flag("--quiet", o->quiet, "no progress bar");
   cmd->add_option("-f,--format", o->format, "text (default), markdown, csv or jsonl")->capture_default_str();
   cmd->add_option("-o,--output", o->output, "write the table to this file instead of standard output");
@@ -64,13 +69,39 @@ void setup_screen(CLI::App& app) {
     request.options.occupancy = parse_occupancy_policy(o->occupancy, "--occupancy", ErrorKind::usage);
     if (!(request.options.symprec > 0 && request.options.symprec < 1))
       fail(ErrorKind::usage, "symprec out of range", "--symprec", "0 < symprec < 1 Angstrom");
+    if (request.options.max_atoms < 1)
+      fail(ErrorKind::usage, "--max-atoms must be at least 1", "--max-atoms", "e.g. 20000");
     request.files = collect_structure_files(o->paths);
     ProgressBar bar;
     const bool show = !o->quiet && ::isatty(STDERR_FILENO);
-    const auto rows = screen_structures(request, o->threads, [&](std::size_t done, std::size_t total) {
-      if (show) bar.update(done, total);
-    });
+    // A run writing a file keeps a journal beside it, so an interrupted run resumes.
+    std::unique_ptr<ScreenJournal> journal;
+    if (o->output != "-" && !o->output.empty()) {
+      journal = std::make_unique<ScreenJournal>(o->output + ".partial", request);
+      if (!journal->resumed().empty())
+        std::cerr << "tensorsieve: resuming from " << o->output << ".partial: " << journal->resumed().size()
+                  << " files already screened\n";
+    }
+    std::size_t appended = 0;
+    std::vector<ScreenRow> rows;
+    try {
+      rows = screen_structures(
+          request, o->threads,
+          [&](std::size_t done, std::size_t total) {
+            if (show) bar.update(done, total);
+          },
+          journal ? journal->resumed() : std::vector<ScreenRow>{},
+          [&](const ScreenRow& row) {
+            if (journal) journal->append(row);
+            ++appended;
+          });
+    } catch (...) {
+      // Refused before any file was screened (an unknown response id): nothing to resume.
+      if (journal && appended == 0 && journal->resumed().empty()) journal->remove();
+      throw;
+    }
     emit({"text", o->output}, write_screen(request, rows, format));
+    if (journal) journal->remove();
     std::size_t failed = 0;
     for (const auto& r : rows) failed += r.error.empty() ? 0 : 1;
     if (failed)

@@ -93,12 +93,22 @@ inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, con
     f.column = look.column == "single" ? FigureColumn::single
                : look.column == "double" ? FigureColumn::double_column
                                          : FigureColumn::automatic;
-  if (out.format == "html") emit(out, write_scenario_html(r, observations, {report_date(), command_line()}));
-  else if (brief) emit(out, write_scenario_brief(r, parse_format(out.format), observations));
-  else if (observations) emit(out, write_scenario_with_observations(*observations, parse_format(out.format)));
-  else emit(out, write_scenario(r, parse_format(out.format)));
-  if (spec.directory.empty()) return;
-  std::vector<std::string> written = write_figures(figures, spec.directory, formats, look.dpi ? look.dpi : 300);
+  std::string report;
+  if (out.format == "html") report = write_scenario_html(r, observations, {report_date(), command_line()});
+  else if (brief) report = write_scenario_brief(r, parse_format(out.format), observations);
+  else if (observations) report = write_scenario_with_observations(*observations, parse_format(out.format));
+  else report = write_scenario(r, parse_format(out.format));
+  if (spec.directory.empty()) {
+    emit(out, report);
+    return;
+  }
+  // The report and the figures are committed together: a figure that cannot be
+  // written leaves the old report in place as well.
+  OutputBatch batch;
+  std::vector<std::string> written = write_figures(figures, spec.directory, formats, &batch, look.dpi ? look.dpi : 300);
+  batch.add(out.output, out.format == "text" ? wrap_text(report, text_width()) : report);
+  batch.commit();
+  if (out.output != "-") std::cerr << "tensorsieve: wrote " << out.output << "\n";
   std::cerr << "tensorsieve: wrote " << counted(figures.size(), "figure") << ", " << counted(written.size(), "file") << ", into "
             << spec.directory << "\n";
 }

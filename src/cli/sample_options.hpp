@@ -24,6 +24,8 @@ inline void add_sample_options(CLI::App& cmd, SampleOptions& o, bool group_requi
   auto* g = cmd.add_option("group", o.sc.group, kGroupSymbolHelp);
   if (group_required) g->required();
   cmd.add_option("--cut", o.sc.cut, "surface or interface: (hkl), (hkil) or [uvw]");
+  cmd.add_option("--max-steps", o.sc.max_steps, "refuse a chain of more lowering steps than this")
+      ->capture_default_str();
   cmd.add_option("--x", o.sc.x, "in-plane direction for sample x");
   cmd.add_option("--z", o.sc.z, "sample z for a bulk sample (no cut)");
   cmd.add_flag("--equivalent-faces", o.sc.equivalent_faces, "free-standing slab with identical faces");

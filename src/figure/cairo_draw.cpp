@@ -589,7 +589,7 @@ std::string render_figure(const FigureData& f, FigureFormat format, int dpi) {
 }
 
 std::vector<std::string> write_figures(const std::vector<FigureData>& figures, const std::string& directory,
-                                       const std::vector<FigureFormat>& formats, int dpi) {
+                                       const std::vector<FigureFormat>& formats, OutputBatch* batch, int dpi) {
   namespace fs = std::filesystem;
   std::error_code ec;
   fs::create_directories(directory, ec);
@@ -600,11 +600,11 @@ std::vector<std::string> write_figures(const std::vector<FigureData>& figures, c
   for (const auto& f : figures) {
     for (FigureFormat fmt : formats) {
       const std::string path = (fs::path(directory) / (f.stem + "." + figure_extension(fmt))).string();
-      write_output(path, render_figure(f, fmt, dpi));
+      batch->add(path, render_figure(f, fmt, dpi), Links::replace);
       written.push_back(path);
     }
     const std::string caption = (fs::path(directory) / (f.stem + ".caption.txt")).string();
-    write_output(caption, f.title + "\n\n" + f.caption + "\n");
+    batch->add(caption, f.title + "\n\n" + f.caption + "\n", Links::replace);
     written.push_back(caption);
   }
   return written;

@@ -5,6 +5,7 @@
 // Output goes to SVG, PDF or PNG bytes; files are written atomically.
 #pragma once
 
+#include "core/output_file.hpp"
 #include "figure/figure_data.hpp"
 
 #include <string>
@@ -21,9 +22,12 @@ const char* figure_extension(FigureFormat f);
 // (FigureData::column), text at 7-9 pt, SVG text as <text> elements, PNG at `dpi`.
 std::string render_figure(const FigureData& f, FigureFormat format, int dpi = 300);
 
-// Every figure in every format into `directory` (created if missing), each
-// with its caption beside it (STEM.caption.txt); returns the paths written.
+// Every figure in every format for `directory` (created if missing), each
+// with its caption beside it (STEM.caption.txt), added to `batch` so they are
+// written together with the report; a link planted in the directory is
+// replaced, never followed. Returns the paths.
 std::vector<std::string> write_figures(const std::vector<FigureData>& figures, const std::string& directory,
-                                       const std::vector<FigureFormat>& formats, int dpi = 300);
+                                       const std::vector<FigureFormat>& formats, OutputBatch* batch,
+                                       int dpi = 300);
 
 } // namespace ts

@@ -89,10 +89,16 @@ void require_metric(const std::array<long, 3>& v, const std::string& system, con
   if (!needs_metric(v, system)) return;
   bool ok = m.a.has_value() && m.c.has_value();
   if (system == "orthorhombic") ok = ok && m.b.has_value();
+  // Indices of a trigonal group are read in hexagonal axes; a user thinking in
+  // rhombohedral axes meant (hkl)_R = (h-k, k-l, h+k+l)_H, e.g. (111)_R = (0001).
+  std::string rhombohedral;
+  if (system == "trigonal" && v[0] == v[1] && v[1] == v[2])
+    rhombohedral = "; indices are read in hexagonal axes: the rhombohedral (111) is the hexagonal (0001), --cut "
+                   "\"(0001)\", which needs no lattice parameters";
   if (!ok)
     fail(ErrorKind::bad_geometry,
          text + " in " + (system == "orthorhombic" ? "an " : "a ") + system +
-             " crystal depends on the axis ratios; give the lattice parameters",
+             " crystal depends on the axis ratios; give the lattice parameters" + rhombohedral,
          where,
          system == "orthorhombic" ? "lattice = { a = ..., b = ..., c = ... } in a scenario, --a --b --c on the command line"
                                   : "lattice = { a = ..., c = ... } in a scenario, --a --c on the command line");

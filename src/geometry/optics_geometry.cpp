@@ -101,8 +101,9 @@ Polariser parse_polariser(const std::string& s, bool may_rotate, const std::stri
     p.rotating = true;
     return p;
   }
+  // A sign alone ("-S" splits into "-" and "S") is no angle.
   bool digits = !s.empty() && s.size() < 5 && s.find_first_not_of("-0123456789") == std::string::npos &&
-                s.find('-', 1) == std::string::npos;
+                s.find('-', 1) == std::string::npos && s.find_first_of("0123456789") != std::string::npos;
   if (!digits || std::stoi(s) % 15 != 0)
     fail(ErrorKind::bad_geometry, "'" + text + "' is not a polariser-analyser channel", where, channel_help);
   p.degrees = ((std::stoi(s) % 360) + 360) % 360;

@@ -19,6 +19,7 @@
 #include "core/error.hpp"
 #include "lowering/structure_symmetry.hpp"
 
+#include <cstddef>
 #include <string>
 #include <vector>
 
@@ -35,6 +36,10 @@ struct StructureFileOptions {
   // spglib search. Files give coordinates to 4 or 5 decimals, so the 1e-5 of
   // hand-made TOML structures is too strict here.
   double symprec = 1e-2;
+  // Atoms of the expanded cell beyond which the file is refused: the symmetry
+  // search grows with the square of the atoms (100 general sites of Fm-3m make
+  // 19,200 atoms and 20 s). Raised with --max-atoms.
+  std::size_t max_atoms = 5000;
 };
 
 // "refuse" or "ignore"; anything else throws `kind` naming `where`.

@@ -5,11 +5,16 @@
 #include "lowering/site_grid.hpp"
 
 #include <spglib.h>
+#include <stdio_ext.h>
+#include <sys/wait.h>
+#include <unistd.h>
 
+#include <cerrno>
 #include <cmath>
+#include <cstring>
+#include <functional>
 #include <map>
 #include <memory>
-#include <mutex>
 #include <set>
 #include <sstream>
 
@@ -21,8 +26,8 @@ using Mat = std::array<std::array<double, 3>, 3>;
 using IMat = std::array<std::array<int, 3>, 3>;
 
 const char* const kSpglibValid =
-    "atoms of one species further apart than symprec (merge duplicates or lower symprec); a structure that is "
-    "only nearly symmetric may need a larger symprec";
+    "atoms of one species further apart than symprec: merge atoms listed twice, or give a symprec below the "
+    "shortest distance between two atoms that are not images of each other";
 
 std::string number_text(double x) {
   std::ostringstream s;
@@ -219,13 +224,211 @@ void reject_coincident_sites(const CrystalStructure& cell, const toml::array& si
   }
 }
 
-std::mutex spglib_mutex; // spglib 2.0's error code is one global variable
+// What the symmetry search answers, as plain bytes: it is computed in a child
+// process (run_isolated) and sent back through a pipe.
+struct SpglibAnswer {
+  bool ok = false, crashed = false;
+  char problem[200] = {};
+  int space_group_number = 0, uni_number = 0, magnetic_type = 0;
+  char space_group_symbol[32] = {}, point_group_symbol[16] = {}, bns_number[24] = {};
+  // Rows a, b, c of the basis the rotations are written in: the input lattice,
+  // or the primitive cell of the structure when the input axes miss operations.
+  double lattice[3][3] = {};
+  bool primitive_basis = false;
+  int n_operations = 0; // distinct (W, time reversal) pairs, spglib's order
+  int rotations[192][3][3] = {};
+  unsigned char time_reversals[192] = {};
+};
 
-std::string spglib_problem(const CrystalStructure& cell) {
+void copy_text(char* to, std::size_t size, const char* from) {
+  std::size_t n = 0;
+  for (; from && from[n] && n + 1 < size; ++n) to[n] = from[n];
+  while (n > 0 && to[n - 1] == ' ') --n;
+  to[n] = 0;
+}
+
+void keep_operation(SpglibAnswer* a, const int (*rotation)[3], bool primed) {
+  for (int k = 0; k < a->n_operations; ++k) {
+    bool same = a->time_reversals[k] == (primed ? 1 : 0);
+    for (int i = 0; i < 3 && same; ++i)
+      for (int j = 0; j < 3 && same; ++j) same = a->rotations[k][i][j] == rotation[i][j];
+    if (same) return;
+  }
+  if (a->n_operations == 192) return; // a point group has at most 48 operations, 96 with primes
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j) a->rotations[a->n_operations][i][j] = rotation[i][j];
+  a->time_reversals[a->n_operations++] = primed ? 1 : 0;
+}
+
+// spglib's own reason for an empty answer.
+void note_failure(SpglibAnswer* a) {
   const SpglibError code = spg_get_error_code();
-  std::string text = code == SPGLIB_SUCCESS ? "no result" : spg_get_error_message(code);
-  return "spglib found no symmetry for " + std::string(cell.magnetic ? "this magnetic" : "this") +
-         " structure (" + text + ")";
+  copy_text(a->problem, sizeof a->problem, code == SPGLIB_SUCCESS ? "no result" : spg_get_error_message(code));
+}
+
+// Order of a crystallographic point group from spglib's symbol; 0 if unknown.
+int point_group_order(const std::string& symbol) {
+  static const std::map<std::string, int> orders = {
+      {"1", 1},    {"-1", 2},   {"2", 2},     {"m", 2},    {"2/m", 4},  {"222", 4},   {"mm2", 4},  {"mmm", 8},
+      {"4", 4},    {"-4", 4},   {"4/m", 8},   {"422", 8},  {"4mm", 8},  {"-42m", 8},  {"4/mmm", 16}, {"3", 3},
+      {"-3", 6},   {"32", 6},   {"3m", 6},    {"-3m", 12}, {"6", 6},    {"-6", 6},    {"6/m", 12}, {"622", 12},
+      {"6mm", 12}, {"-6m2", 12}, {"6/mmm", 24}, {"23", 12},  {"m-3", 24}, {"432", 24},  {"-43m", 24}, {"m-3m", 48}};
+  auto it = orders.find(symbol);
+  return it == orders.end() ? 0 : it->second;
+}
+
+SpglibAnswer spglib_search(double lattice[3][3], double (*positions)[3], const int* types, const double* moments, int n,
+                           bool magnetic, double symprec) {
+  SpglibAnswer a;
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j) a.lattice[i][j] = lattice[j][i];
+  if (!magnetic) {
+    SpglibDataset* ds = spg_get_dataset(lattice, positions, types, n, symprec);
+    if (!ds || ds->n_operations <= 0) {
+      note_failure(&a);
+      if (ds) spg_free_dataset(ds);
+      return a;
+    }
+    a.space_group_number = ds->spacegroup_number;
+    copy_text(a.space_group_symbol, sizeof a.space_group_symbol, ds->international_symbol);
+    copy_text(a.point_group_symbol, sizeof a.point_group_symbol, ds->pointgroup_symbol);
+    for (int k = 0; k < ds->n_operations; ++k) keep_operation(&a, ds->rotations[k], false);
+    spg_free_dataset(ds);
+  } else {
+    // Moments are axial rank-1 site tensors: a mirror keeps the component
+    // normal to it and reverses the others; time reversal reverses all.
+    SpglibMagneticDataset* ds =
+        spg_get_magnetic_dataset(lattice, positions, types, moments, /*tensor_rank=*/1, n, /*is_axial=*/1, symprec);
+    if (!ds || ds->n_operations <= 0) {
+      note_failure(&a);
+      if (ds) spg_free_magnetic_dataset(ds);
+      return a;
+    }
+    a.uni_number = ds->uni_number;
+    a.magnetic_type = ds->msg_type;
+    copy_text(a.bns_number, sizeof a.bns_number, spg_get_magnetic_spacegroup_type(ds->uni_number).bns_number);
+    const SpglibSpacegroupType sg = spg_get_spacegroup_type(ds->hall_number);
+    a.space_group_number = sg.number;
+    copy_text(a.space_group_symbol, sizeof a.space_group_symbol, sg.international_short);
+    copy_text(a.point_group_symbol, sizeof a.point_group_symbol, sg.pointgroup_international);
+    for (int k = 0; k < ds->n_operations; ++k) keep_operation(&a, ds->rotations[k], ds->time_reversals[k] != 0);
+    spg_free_magnetic_dataset(ds);
+  }
+  a.ok = true;
+  return a;
+}
+
+// spglib writes the operations in the axes it is given and leaves out those
+// whose matrix there is not an integer one: a hexagonal crystal in an
+// orthohexagonal (C-centred) cell loses its threefold axis that way. When fewer
+// rotations come back than the point group has, the search is repeated on the
+// primitive cell of the same atoms (moments kept apart by giving each
+// species-and-moment its own type), with the Cartesian frame unchanged.
+SpglibAnswer spglib_answer(double lattice[3][3], double (*positions)[3], const int* types, const double* moments, int n,
+                           bool magnetic, double symprec) {
+  SpglibAnswer a = spglib_search(lattice, positions, types, moments, n, magnetic, symprec);
+  if (!a.ok) return a;
+  std::set<std::array<int, 9>> rotations;
+  for (int k = 0; k < a.n_operations; ++k) {
+    std::array<int, 9> r{};
+    for (int i = 0; i < 9; ++i) r[i] = a.rotations[k][i / 3][i % 3];
+    rotations.insert(r);
+  }
+  const int order = point_group_order(a.point_group_symbol);
+  if (order == 0 || static_cast<int>(rotations.size()) >= order) return a;
+
+  std::map<std::pair<int, std::array<double, 3>>, int> kinds;
+  std::vector<int> kind(static_cast<std::size_t>(n));
+  std::vector<std::pair<int, std::array<double, 3>>> kind_of;
+  for (int i = 0; i < n; ++i) {
+    std::array<double, 3> m{};
+    for (int k = 0; k < 3; ++k) m[k] = magnetic ? std::round(moments[3 * i + k] * 1e4) / 1e4 : 0.0;
+    auto it = kinds.emplace(std::make_pair(types[i], m), static_cast<int>(kinds.size()) + 1).first;
+    if (it->second > static_cast<int>(kind_of.size())) kind_of.push_back(it->first);
+    kind[static_cast<std::size_t>(i)] = it->second;
+  }
+  double prim_lattice[3][3];
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j) prim_lattice[i][j] = lattice[i][j];
+  std::unique_ptr<double[][3]> prim_positions(new double[static_cast<std::size_t>(n)][3]);
+  for (int i = 0; i < n; ++i)
+    for (int k = 0; k < 3; ++k) prim_positions[i][k] = positions[i][k];
+  std::vector<int> prim_kind = kind;
+  const int m = spg_standardize_cell(prim_lattice, prim_positions.get(), prim_kind.data(), n, /*to_primitive=*/1,
+                                     /*no_idealize=*/1, symprec);
+  if (m <= 0 || m > n) return a;
+  std::vector<int> prim_types(static_cast<std::size_t>(m));
+  std::vector<double> prim_moments(3 * static_cast<std::size_t>(m));
+  for (int i = 0; i < m; ++i) {
+    const auto& km = kind_of[static_cast<std::size_t>(prim_kind[static_cast<std::size_t>(i)] - 1)];
+    prim_types[static_cast<std::size_t>(i)] = km.first;
+    for (int k = 0; k < 3; ++k) prim_moments[3 * static_cast<std::size_t>(i) + k] = km.second[k];
+  }
+  SpglibAnswer b = spglib_search(prim_lattice, prim_positions.get(), prim_types.data(), prim_moments.data(), m,
+                                 magnetic, symprec);
+  if (!b.ok || b.n_operations <= a.n_operations) return a;
+  b.primitive_basis = true;
+  return b;
+}
+
+// spglib runs in a child process: a crash inside it (found with near-flat
+// cells and large tolerances on magnetic cells) ends the child, not the run,
+// and becomes an error of this one structure. The child also has its own copy
+// of spglib's global error code, so searches on several threads need no lock
+// and run in parallel.
+SpglibAnswer run_isolated(const std::function<SpglibAnswer()>& search) {
+  int fds[2];
+  SpglibAnswer failed;
+  failed.crashed = true;
+  if (::pipe(fds) != 0) {
+    copy_text(failed.problem, sizeof failed.problem, "no pipe to a child process");
+    return failed;
+  }
+  const pid_t pid = ::fork();
+  if (pid < 0) {
+    ::close(fds[0]);
+    ::close(fds[1]);
+    copy_text(failed.problem, sizeof failed.problem, "no child process");
+    return failed;
+  }
+  if (pid == 0) {
+    ::close(fds[0]);
+    // Another thread may have held a stream's lock at the fork; spglib's warnings
+    // must not wait for it in this copy, where nobody will release it.
+    __fsetlocking(stderr, FSETLOCKING_BYCALLER);
+    __fsetlocking(stdout, FSETLOCKING_BYCALLER);
+    const SpglibAnswer a = search();
+    const char* p = reinterpret_cast<const char*>(&a);
+    std::size_t left = sizeof a;
+    while (left > 0) {
+      const ssize_t w = ::write(fds[1], p, left);
+      if (w < 0 && errno == EINTR) continue;
+      if (w <= 0) ::_exit(3);
+      p += w;
+      left -= static_cast<std::size_t>(w);
+    }
+    ::_exit(0);
+  }
+  ::close(fds[1]);
+  SpglibAnswer a;
+  char* p = reinterpret_cast<char*>(&a);
+  std::size_t got = 0;
+  while (got < sizeof a) {
+    const ssize_t r = ::read(fds[0], p + got, sizeof a - got);
+    if (r < 0 && errno == EINTR) continue;
+    if (r <= 0) break;
+    got += static_cast<std::size_t>(r);
+  }
+  ::close(fds[0]);
+  int status = 0;
+  while (::waitpid(pid, &status, 0) < 0 && errno == EINTR) {
+  }
+  if (got == sizeof a && WIFEXITED(status) && WEXITSTATUS(status) == 0) return a;
+  const std::string why = WIFSIGNALED(status) ? std::string("signal ") + std::to_string(WTERMSIG(status)) + ", " +
+                                                    ::strsignal(WTERMSIG(status))
+                                              : "the search ended without an answer";
+  copy_text(failed.problem, sizeof failed.problem, why.c_str());
+  return failed;
 }
 
 // Entries of point operations in Cartesian frames aligned with the lattice are
@@ -240,20 +443,22 @@ double snapped(double v) {
   return v;
 }
 
-std::string trimmed(const char* s) {
-  std::string t(s);
-  while (!t.empty() && t.back() == ' ') t.pop_back();
-  return t;
-}
 
 } // namespace
 
 bool lattice_from_cell_parameters(const std::array<double, 6>& p, std::array<std::array<double, 3>, 3>* lattice) {
+  // An angle within 1e-6 degrees of 0 or 180 flattens the cell: sin(gamma)
+  // rounds to zero and the lattice would be NaN, which crashed spglib.
+  for (int i = 0; i < 6; ++i)
+    if (!std::isfinite(p[i]) || p[i] <= 0) return false;
+  for (int i = 3; i < 6; ++i)
+    if (p[i] < 1e-6 || p[i] > 180 - 1e-6) return false;
   const double ca = cos_degrees(p[3]), cb = cos_degrees(p[4]), cg = cos_degrees(p[5]);
   const double sg = std::sqrt(1 - cg * cg);
+  if (!(sg > 1e-9)) return false;
   const double cy = (ca - cb * cg) / sg;
   const double cz2 = 1 - cb * cb - cy * cy;
-  if (cz2 <= 1e-12) return false;
+  if (!(cz2 > 1e-12)) return false;
   // a along x, b in the xy plane, c completing a right-handed set.
   Mat& m = *lattice;
   m[0] = {p[0], 0, 0};
@@ -323,66 +528,66 @@ StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double s
     types[i] = it->second;
   }
 
+  // A lattice or position that is not finite reaches spglib only as a crash.
+  const double scale = norm(cell.lattice[0]) * norm(cell.lattice[1]) * norm(cell.lattice[2]);
+  bool finite = std::isfinite(scale) && scale > 0 && std::fabs(det3(cell.lattice)) > 1e-6 * scale;
+  for (std::size_t i = 0; i < n; ++i)
+    for (int k = 0; k < 3; ++k)
+      finite = finite && std::isfinite(positions[i][k]) && std::isfinite(moments[3 * i + k]);
+  if (!finite)
+    fail(ErrorKind::bad_file, "the cell is degenerate (flat, zero or not a number) or a site is not a finite position",
+         where, "three independent lattice vectors, angles away from 0 and 180 degrees, finite coordinates");
+
+  // A search that finds nothing is tried again at a tenth and a hundredth of
+  // the tolerance: atoms or moments closer than symprec are what usually stops
+  // it, and a larger tolerance would only merge more of them.
+  SpglibAnswer answer;
+  std::string tried;
+  double used = symprec;
+  for (double factor : {1.0, 0.1, 0.01}) {
+    used = symprec * factor;
+    answer = run_isolated([&] {
+      return spglib_answer(lattice, positions.get(), types.data(), moments.data(), static_cast<int>(n), cell.magnetic,
+                           used);
+    });
+    if (answer.ok || answer.crashed) break;
+    tried += (tried.empty() ? "" : ", ") + number_text(used);
+  }
+  if (answer.crashed)
+    fail(ErrorKind::bad_file,
+         "the symmetry library (spglib) crashed on this " + std::string(cell.magnetic ? "magnetic " : "") +
+             "structure at symprec " + number_text(symprec) + " Angstrom (" + answer.problem +
+             "); the run goes on without it",
+         where, "a smaller symprec (atoms or moments closer than symprec confuse the search), or a cleaner cell");
+  if (!answer.ok)
+    fail(ErrorKind::bad_file,
+         "spglib found no symmetry for " + std::string(cell.magnetic ? "this magnetic" : "this") + " structure (" +
+             answer.problem + "), tried at symprec " + tried + " Angstrom",
+         where, kSpglibValid);
   StructureSymmetry out;
-  out.symprec = symprec;
-  int n_ops = 0;
+  out.symprec = used;
+  out.space_group_number = answer.space_group_number;
+  out.space_group_symbol = answer.space_group_symbol;
+  out.point_group_symbol = answer.point_group_symbol;
+  out.magnetic_uni_number = answer.uni_number;
+  out.magnetic_type = answer.magnetic_type;
+  out.bns_number = answer.bns_number;
   std::vector<IMat> rotations;
   std::vector<bool> primed;
-  {
-    std::lock_guard<std::mutex> lock(spglib_mutex);
-    if (!cell.magnetic) {
-      SpglibDataset* ds = spg_get_dataset(lattice, positions.get(), types.data(), static_cast<int>(n), symprec);
-      if (!ds || ds->n_operations <= 0) {
-        std::string problem = spglib_problem(cell);
-        if (ds) spg_free_dataset(ds);
-        fail(ErrorKind::bad_file, problem, where,
-             kSpglibValid);
-      }
-      out.space_group_number = ds->spacegroup_number;
-      out.space_group_symbol = trimmed(ds->international_symbol);
-      out.point_group_symbol = trimmed(ds->pointgroup_symbol);
-      n_ops = ds->n_operations;
-      for (int k = 0; k < n_ops; ++k) {
-        IMat w{};
-        for (int i = 0; i < 3; ++i)
-          for (int j = 0; j < 3; ++j) w[i][j] = ds->rotations[k][i][j];
-        rotations.push_back(w);
-        primed.push_back(false);
-      }
-      spg_free_dataset(ds);
-    } else {
-      // Moments are axial rank-1 site tensors: a mirror keeps the component
-      // normal to it and reverses the others; time reversal reverses all.
-      SpglibMagneticDataset* ds = spg_get_magnetic_dataset(lattice, positions.get(), types.data(), moments.data(),
-                                                           /*tensor_rank=*/1, static_cast<int>(n),
-                                                           /*is_axial=*/1, symprec);
-      if (!ds || ds->n_operations <= 0) {
-        std::string problem = spglib_problem(cell);
-        if (ds) spg_free_magnetic_dataset(ds);
-        fail(ErrorKind::bad_file, problem, where,
-             kSpglibValid);
-      }
-      out.magnetic_uni_number = ds->uni_number;
-      out.magnetic_type = ds->msg_type;
-      out.bns_number = spg_get_magnetic_spacegroup_type(ds->uni_number).bns_number;
-      const SpglibSpacegroupType sg = spg_get_spacegroup_type(ds->hall_number);
-      out.space_group_number = sg.number;
-      out.space_group_symbol = trimmed(sg.international_short);
-      out.point_group_symbol = trimmed(sg.pointgroup_international);
-      n_ops = ds->n_operations;
-      for (int k = 0; k < n_ops; ++k) {
-        IMat w{};
-        for (int i = 0; i < 3; ++i)
-          for (int j = 0; j < 3; ++j) w[i][j] = ds->rotations[k][i][j];
-        rotations.push_back(w);
-        primed.push_back(ds->time_reversals[k] != 0);
-      }
-      spg_free_magnetic_dataset(ds);
-    }
+  for (int k = 0; k < answer.n_operations; ++k) {
+    IMat w{};
+    for (int i = 0; i < 3; ++i)
+      for (int j = 0; j < 3; ++j) w[i][j] = answer.rotations[k][i][j];
+    rotations.push_back(w);
+    primed.push_back(answer.time_reversals[k] != 0);
   }
 
-  // R_cart = M^T W M^-T, with M the matrix whose rows are a, b, c.
-  const Mat& m = cell.lattice;
+  // R_cart = M^T W M^-T, with M the matrix whose rows are a, b, c (of the basis
+  // the search wrote W in: the cell's, or its primitive cell's, same Cartesian frame).
+  Mat m{};
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j) m[i][j] = answer.lattice[i][j];
+  out.primitive_basis = answer.primitive_basis;
   const Mat m_inv = inverse3(m);
   std::set<std::pair<IMat, bool>> seen;
   for (std::size_t k = 0; k < rotations.size(); ++k) {

@@ -50,6 +50,10 @@ struct CrystalStructure {
   std::string stated_bns_number; // _space_group_magn.number_BNS, empty when not stated
   std::vector<std::pair<std::array<std::array<int, 3>, 3>, bool>> stated_point_parts; // (W, primed)
   std::vector<std::string> reading_notes;
+  // The file gave rhombohedral axes, turned into hexagonal ones (obverse:
+  // a_h = a - b, b_h = b - c, c_h = a + b + c); Miller indices and directions
+  // the user writes for this structure refer to the file's axes.
+  bool rhombohedral_axes = false;
 };
 
 struct PointOperation {
@@ -77,6 +81,11 @@ struct StructureSymmetry {
   int magnetic_type = 0;       // 1..4 (type IV: anti-translations, grey point group) when magnetic, else 0
   std::string bns_number;      // BNS number of the magnetic space group, e.g. "167.108", when magnetic
   double symprec = 1e-5;       // the tolerance the search used
+  // The input axes miss some operations (their matrices there are not integer,
+  // e.g. a threefold axis in an orthohexagonal cell), so rotation_lattice is
+  // written in the axes of the primitive cell spglib found; rotation_cartesian
+  // is in the structure's Cartesian frame as always.
+  bool primitive_basis = false;
 };
 
 // A [structure] block of a TOML file is read by parse_structure (lowering/structure_table.hpp).

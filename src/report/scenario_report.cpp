@@ -17,6 +17,12 @@ namespace ts {
 
 namespace {
 
+// Text the user wrote (step labels, file names in notes) is text in every
+// format: LaTeX gets it with its special characters escaped, so a label such
+// as "x_1 at 50%" or "\\input{...}" prints as written and runs nothing.
+std::string user_text(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
+
+
 std::string code(const std::string& s, Format f) { return inline_code(s, f); }
 
 // What a person reads: the type with its elements in words for a non-standard setting
@@ -278,7 +284,8 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   std::ostringstream os;
   os << section_heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
   if (f == Format::text) os << "source: " << sc.source << "\n";
-  if (!r.parent_note.empty()) os << (f == Format::latex ? "\\noindent " : "") << "parent: " << r.parent_note << "\n";
+  if (!r.parent_note.empty())
+    os << (f == Format::latex ? "\\noindent " : "") << "parent: " << user_text(r.parent_note, f) << "\n";
   os << (f == Format::latex ? "\n\\noindent " : "") << "sample frame: " << frame_text << " (right-handed, y = z × x)\n\n";
 
   os << section_heading("symmetry chain", f);
@@ -286,7 +293,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   for (std::size_t i = 0; i < r.chain.size(); ++i) {
     const auto& st = r.chain[i];
     std::string setting = st.sample_symbol.empty() ? standard_axes(st, lattice) : "as written, in the sample frame";
-    rows.push_back({std::to_string(i), st.label, code(group_name(st), f), st.id.type->schoenflies,
+    rows.push_back({std::to_string(i), user_text(st.label, f), code(group_name(st), f), st.id.type->schoenflies,
                     std::to_string(st.group.order()), setting});
   }
   os << grid({"step", "imposed", "group", "Schoenflies", "order", "setting"}, rows, f);
@@ -358,7 +365,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       for (const auto& s : ch.switched_on) on += (on.empty() ? "" : ", ") + code(s, f);
       std::vector<std::string> br;
       for (const auto& b : ch.broken) br.push_back(code(relation_text(b, f == Format::latex ? Format::text : f), f));
-      os << (f == Format::markdown ? "- " : "  ") << "step " << ch.step << " (" << r.chain[ch.step].label << "): "
+      os << (f == Format::markdown ? "- " : "  ") << "step " << ch.step << " (" << user_text(r.chain[ch.step].label, f) << "): "
          << ch.before << " → " << ch.after << " independent";
       if (!on.empty()) os << "; switched on: " << on;
       if (!br.empty()) os << "; relations broken: " << join(br, ", ");

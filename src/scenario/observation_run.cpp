@@ -23,7 +23,9 @@ Target observed_tensor(const ObservationRequest& o, TimeParity parity) {
     parts += (i ? ", " : "") + std::to_string(i + 1) + " = " + r.parts[i].label + " (" + r.parts[i].spec.name + ")";
   const ResponsePart* chosen = nullptr;
   if (!o.part.empty()) {
-    std::size_t k = std::stoul(o.part);
+    // At most 9 digits: a longer number is no part, and would not fit the conversion.
+    const bool number = o.part.size() <= 9 && o.part.find_first_not_of("0123456789") == std::string::npos;
+    const std::size_t k = number ? std::stoul(o.part) : 0;
     if (k < 1 || k > r.parts.size())
       fail(ErrorKind::usage, r.id + " has no part " + o.part, o.where, "a part number: " + parts);
     chosen = &r.parts[k - 1];

@@ -367,7 +367,26 @@ void read_figures(const toml::table& root, const std::string& path, Scenario& sc
     f.incidence = static_cast<int>(*d);
   }
   f.formats = get_strings(*t, "formats", path);
-  f.directory = get_string(*t, "directory", path, false, "a directory path, relative to the working directory");
+  f.directory = get_string(*t, "directory", path, false, "a directory path, relative to the scenario file");
+  // A scenario is a file someone may have sent: it chooses where files are
+  // written only inside its own folder. Another place is the command line's
+  // to choose (--figures DIR).
+  if (!f.directory.empty()) {
+    const std::filesystem::path dir(f.directory);
+    int depth = 0;
+    bool inside = dir.is_relative() && !dir.has_root_name();
+    for (const auto& part : dir) {
+      if (part == "..") --depth;
+      else if (part != "." && !part.empty()) ++depth;
+      inside = inside && depth >= 0;
+    }
+    if (!inside)
+      fail(ErrorKind::bad_file, "figure directory '" + f.directory + "' lies outside the scenario's folder",
+           at(path, t->get("directory")->source()),
+           "a relative path inside the scenario's folder, e.g. directory = \"figures\"; another place is given on "
+           "the command line with --figures DIR");
+    f.directory = (std::filesystem::path(path).parent_path() / dir).lexically_normal().string();
+  }
 }
 
 } // namespace
@@ -380,8 +399,10 @@ Rational parse_fraction(const std::string& text, const std::string& where, Error
     std::size_t slash = text.find('/');
     if (slash == std::string::npos) {
       double v = std::stod(text, &used);
-      if (used != text.size()) throw std::invalid_argument(text);
-      r = exact_decimal(v, where, bad_value);
+      if (used != text.size() || !std::isfinite(v)) throw std::invalid_argument(text);
+      // exact_decimal reads positive lengths; a fraction may be zero (a variant
+      // that is absent) and is out of range below zero.
+      r = v <= 0 ? Rational(v < 0 ? -1 : 0) : exact_decimal(v, where, bad_value);
     } else {
       long long p = std::stoll(text.substr(0, slash), &used);
       if (used != slash) throw std::invalid_argument(text);
@@ -414,7 +435,8 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
   if (!crystal) fail(ErrorKind::bad_file, "missing [crystal] table", path, "[crystal] with group = \"m-3m\" or a [crystal.structure]");
-  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy", "symprec"}, path, "[crystal]");
+  check_keys(*crystal, {"group", "lattice", "structure", "nonmagnetic", "file", "occupancy", "symprec", "max_atoms"}, path,
+             "[crystal]");
   sc.group = get_string(*crystal, "group", path, false, "a point-group symbol such as m-3m or 4/mmm1'");
   if (crystal->get("group"))
     check_at(position_of(*crystal, "group", path), [&] { GroupCatalogue::builtin().get(sc.group); });
@@ -440,6 +462,13 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
         fail(ErrorKind::bad_file, "'symprec' must be a distance in Angstrom between 0 and 1", at(path, p->source()),
              "symprec = 0.01 (the default for files)");
       options.symprec = *v;
+    }
+    if (auto p = crystal->get("max_atoms")) {
+      auto v = p->value_exact<int64_t>();
+      if (!v || *v < 1 || *v > 10000000)
+        fail(ErrorKind::bad_file, "'max_atoms' must be a whole number of atoms from 1 to 10000000",
+             at(path, p->source()), "max_atoms = 20000");
+      options.max_atoms = static_cast<std::size_t>(*v);
     }
     // A relative path is read from the scenario's folder, so a scenario and its CIF travel together.
     std::filesystem::path cif = get_string(*crystal, "file", path, true, "a CIF or mCIF path, relative to this file");
@@ -498,6 +527,10 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
       if (s.kind == LoweringKind::shear && s.second.empty())
         fail(ErrorKind::bad_file, "a shear step needs 'along' and 'and'", s.where, "along = \"[100]\", and = \"[010]\"");
       sc.steps.push_back(s);
+      // Far beyond any liftable limit of run_scenario: reading stops here, not in memory.
+      if (sc.steps.size() > 100000)
+        fail(ErrorKind::bad_file, "more than 100000 [[lowering]] steps", s.where,
+             "a chain of steps a report can show (64 by default, --max-steps N for more)");
     }
   }
   sc.responses = get_strings(root, "responses", path);

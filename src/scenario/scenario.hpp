@@ -150,11 +150,19 @@ struct Scenario {
   std::string group;                 // parent point group symbol (empty when a structure is given)
   bool assume_nonmagnetic = true;    // add 1' to a parent symbol without primes or 1'
   std::optional<CrystalStructure> structure;
+  // The symmetry search's answer for `structure`, when the caller already has
+  // it (screening asks for it first, to look its group up in a cache); else
+  // run_scenario searches.
+  std::optional<StructureSymmetry> structure_symmetry;
   LatticeMetric metric;
   std::string cut;                   // "(110)", "[111]", "(11-20)"; empty: bulk
   bool equivalent_faces = false;     // a free-standing slab with identical faces keeps operations that flip n
   std::string x, z;                  // sample x (in plane); z only without a cut
   std::vector<LoweringStep> steps;
+  // Every step repeats each form for each response (and its domains), so the
+  // work and the report grow with steps x responses; run_scenario refuses a
+  // longer chain than this. The command line lifts it (--max-steps).
+  std::size_t max_steps = 64;
   std::vector<std::string> responses; // catalogue ids
   std::vector<std::string> tensors;   // extra tensor specs
   bool domains = false;

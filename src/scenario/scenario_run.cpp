@@ -3,6 +3,7 @@
 #include "core/error.hpp"
 #include "core/text.hpp"
 #include "lowering/curie.hpp"
+#include "geometry/crystal_direction.hpp"
 #include "geometry/sample_frame.hpp"
 #include "lowering/glazer_tilts.hpp"
 #include "lowering/structure_file.hpp"
@@ -14,6 +15,7 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <numeric>
 
 namespace ts {
 
@@ -53,7 +55,7 @@ Parent parent_group(const Scenario& sc, LatticeMetric& metric) {
     return p;
   }
   const CrystalStructure& st = *sc.structure;
-  StructureSymmetry sym = find_structure_symmetry(st);
+  StructureSymmetry sym = sc.structure_symmetry ? *sc.structure_symmetry : find_structure_symmetry(st);
   std::vector<Operation> ops;
   bool hexagonal = false;
   for (const auto& po : sym.point_operations) {
@@ -362,6 +364,39 @@ KerrResult run_kerr(const KerrSpec& spec, const ScenarioResult& res, LatticeKind
   return out;
 }
 
+// A plane (hkl) or direction [uvw] written in the rhombohedral axes of a
+// structure file, in the hexagonal axes the structure is held in (obverse:
+// a_h = a_r - b_r, b_h = b_r - c_r, c_h = a_r + b_r + c_r). Plane indices go
+// like the axes, (h - k, k - l, h + k + l); directions go inversely,
+// [2u - v - w, u + v - 2w, u + v + w] (over 3, dropped with the common factor).
+// Four-index or unreadable text is left for the frame builder to judge.
+std::string hexagonal_from_rhombohedral(const std::string& text, const std::string& where) {
+  if (text.size() < 2) return text;
+  const bool plane = text.front() == '(' && text.back() == ')';
+  const bool direction = text.front() == '[' && text.back() == ']';
+  if (!plane && !direction) return text;
+  std::vector<long> v;
+  try {
+    v = parse_miller_indices(text.substr(1, text.size() - 2), text, where, "");
+  } catch (const Error&) {
+    return text;
+  }
+  if (v.size() != 3) return text;
+  for (long x : v)
+    if (x > 1000000 || x < -1000000) return text;
+  std::array<long, 3> h = plane ? std::array<long, 3>{v[0] - v[1], v[1] - v[2], v[0] + v[1] + v[2]}
+                                : std::array<long, 3>{2 * v[0] - v[1] - v[2], v[0] + v[1] - 2 * v[2], v[0] + v[1] + v[2]};
+  const long g = std::gcd(std::gcd(std::labs(h[0]), std::labs(h[1])), std::labs(h[2]));
+  bool wide = false;
+  for (long& x : h) {
+    if (g > 1) x /= g;
+    wide = wide || x > 9 || x < -9;
+  }
+  std::string body;
+  for (int i = 0; i < 3; ++i) body += (i && wide ? "," : "") + std::to_string(h[i]);
+  return (plane ? "(" : "[") + body + (plane ? ")" : "]");
+}
+
 } // namespace
 
 std::vector<SumInput> probe_sum_inputs(const ScenarioResult& res, const std::vector<std::string>& only) {
@@ -383,12 +418,33 @@ std::vector<SumInput> probe_sum_inputs(const ScenarioResult& res, const std::vec
   return out;
 }
 
-ScenarioResult run_scenario(const Scenario& sc) {
+ScenarioResult run_scenario(const Scenario& given) {
+  if (given.steps.size() > given.max_steps) {
+    const LoweringStep& first_extra = given.steps[given.max_steps];
+    fail(first_extra.bad_value,
+         std::to_string(given.steps.size()) + " lowering steps, more than the " + std::to_string(given.max_steps) +
+             " a scenario may run (each step repeats every form for every response)",
+         first_extra.where.empty() ? given.source : first_extra.where,
+         "a shorter chain (a step that changes nothing can go), or a larger limit with --max-steps N on the command "
+         "line");
+  }
+  Scenario sc = given;
+  std::string axes_note;
+  if (sc.structure && sc.structure->rhombohedral_axes) {
+    for (std::string* field : {&sc.cut, &sc.z, &sc.x}) {
+      if (field->empty()) continue;
+      const std::string hex = hexagonal_from_rhombohedral(*field, sc.source);
+      if (hex != *field) axes_note += (axes_note.empty() ? "" : ", ") + *field + " is " + hex;
+      *field = hex;
+    }
+    if (!axes_note.empty())
+      axes_note = "indices refer to the file's rhombohedral axes: " + axes_note + " in the hexagonal axes used here";
+  }
   ScenarioResult res;
-  res.scenario = sc;
+  res.scenario = given;
   LatticeMetric metric = sc.metric;
   Parent parent = parent_group(sc, metric);
-  res.parent_note = parent.note;
+  res.parent_note = parent.note + (axes_note.empty() ? "" : "; " + axes_note);
   res.structure_symmetry = parent.symmetry;
   const LatticeKind lattice = parent.group.lattice();
   SampleFrame sf = build_sample_frame({sc.cut, sc.z, sc.x, sc.source}, parent.system, lattice, metric);
@@ -421,7 +477,7 @@ ScenarioResult run_scenario(const Scenario& sc) {
   push("bulk", "", parent.group);
   if (!sc.cut.empty()) {
     QuantityKind k = sc.equivalent_faces ? QuantityKind::line : QuantityKind::polar_even;
-    push("cut " + sc.cut + (sc.equivalent_faces ? ", slab with equivalent faces" : ", surface or interface"),
+    push("cut " + given.cut + (sc.equivalent_faces ? ", slab with equivalent faces" : ", surface or interface"),
          sc.equivalent_faces ? "unoriented normal (both faces alike)" : "polar normal (film side differs from substrate side)",
          stabiliser(parent.group, {k, normal, Mat3::identity()}));
   }

@@ -6,10 +6,15 @@
 #include "scenario/scenario_run.hpp"
 
 #include <algorithm>
+#include <cmath>
+#include <cstdio>
 #include <atomic>
 #include <filesystem>
+#include <exception>
 #include <fstream>
+#include <map>
 #include <mutex>
+#include <optional>
 #include <thread>
 
 namespace ts {
@@ -40,42 +45,108 @@ void add_path(const fs::path& p, const std::string& where, std::vector<std::stri
   out->push_back(p.string());
 }
 
-ScreenRow screen_one(const std::string& file, const ScreenRequest& request) {
+// What a row says that depends on the point group alone (in its crystal
+// frame, with the lattice lengths a cut needs): files of one group share it, so
+// each group is worked out once per run.
+struct GroupAnswer {
+  std::string point_group, setting;
+  std::vector<std::string> cut_groups;
+  std::vector<std::vector<int>> counts;
+};
+
+class GroupCache {
+public:
+  std::optional<GroupAnswer> find(const std::string& key) {
+    std::lock_guard<std::mutex> lock(mutex_);
+    auto it = answers_.find(key);
+    if (it == answers_.end()) return std::nullopt;
+    return it->second;
+  }
+  void keep(const std::string& key, const GroupAnswer& a) {
+    std::lock_guard<std::mutex> lock(mutex_);
+    answers_.emplace(key, a);
+  }
+
+private:
+  std::mutex mutex_;
+  std::map<std::string, GroupAnswer> answers_;
+};
+
+// The point operations (Cartesian, time reversal) in a fixed order, and for
+// cuts the lattice lengths that fix the film normal.
+std::string group_key(const CrystalStructure& st, const StructureSymmetry& sym, bool with_lattice) {
+  std::vector<std::string> ops;
+  char buf[64];
+  for (const auto& op : sym.point_operations) {
+    std::string o = op.time_reversal ? "'" : "";
+    for (const auto& row : op.rotation_cartesian)
+      for (double v : row) {
+        std::snprintf(buf, sizeof buf, "%.12g,", v == 0 ? 0.0 : v);
+        o += buf;
+      }
+    ops.push_back(o);
+  }
+  std::sort(ops.begin(), ops.end());
+  std::string key = st.magnetic ? "m|" : "n|";
+  for (const auto& o : ops) key += o + ";";
+  if (with_lattice) {
+    key += st.rhombohedral_axes ? "|r" : "|h";
+    for (const auto& row : st.lattice) {
+      double len = 0;
+      for (double v : row) len += v * v;
+      std::snprintf(buf, sizeof buf, "|%.9g", std::sqrt(len));
+      key += buf;
+    }
+  }
+  return key;
+}
+
+ScreenRow screen_one(const std::string& file, const ScreenRequest& request, GroupCache* cache) {
   ScreenRow row;
   row.file = file;
   try {
     Scenario sc;
     sc.source = file;
     sc.structure = read_structure_file(file, request.options);
+    sc.structure_symmetry = find_structure_symmetry(*sc.structure);
     sc.responses = request.responses;
-    auto counts_at = [&](const ScenarioResult& res, std::size_t step) {
-      std::vector<int> counts;
-      for (const auto& id : request.responses) {
-        const std::string& key = ResponseCatalogue::builtin().get(id).id;
-        int n = 0;
-        for (const auto& part : res.parts)
-          if (part.response_id == key) n = std::max(n, part.counts[step]);
-        counts.push_back(n);
+    const StructureSymmetry& sym = *sc.structure_symmetry;
+    row.space_group = sym.space_group_symbol + " (" + std::to_string(sym.space_group_number) + ")";
+    row.bns_number = sym.bns_number;
+    row.magnetic_type = sym.magnetic_type;
+    const std::string key = group_key(*sc.structure, sym, !request.cuts.empty());
+    std::optional<GroupAnswer> known = cache->find(key);
+    if (!known) {
+      auto counts_at = [&](const ScenarioResult& res, std::size_t step) {
+        std::vector<int> counts;
+        for (const auto& id : request.responses) {
+          const std::string& id_key = ResponseCatalogue::builtin().get(id).id;
+          int n = 0;
+          for (const auto& part : res.parts)
+            if (part.response_id == id_key) n = std::max(n, part.counts[step]);
+          counts.push_back(n);
+        }
+        return counts;
+      };
+      GroupAnswer a;
+      const ScenarioResult bulk = run_scenario(sc);
+      const ChainStep& top = bulk.chain.front();
+      a.point_group = top.id.type->symbol;
+      a.setting = top.id.same_setting ? top.id.same_setting->symbol : "";
+      a.counts.push_back(counts_at(bulk, 0));
+      for (const auto& cut : request.cuts) {
+        sc.cut = cut;
+        const ScenarioResult film = run_scenario(sc);
+        a.cut_groups.push_back(film.chain[1].id.type->symbol);
+        a.counts.push_back(counts_at(film, 1));
       }
-      return counts;
-    };
-    const ScenarioResult bulk = run_scenario(sc);
-    const ChainStep& top = bulk.chain.front();
-    row.point_group = top.id.type->symbol;
-    row.setting = top.id.same_setting ? top.id.same_setting->symbol : "";
-    if (bulk.structure_symmetry) {
-      const StructureSymmetry& sym = *bulk.structure_symmetry;
-      row.space_group = sym.space_group_symbol + " (" + std::to_string(sym.space_group_number) + ")";
-      row.bns_number = sym.bns_number;
-      row.magnetic_type = sym.magnetic_type;
+      cache->keep(key, a);
+      known = a;
     }
-    row.counts.push_back(counts_at(bulk, 0));
-    for (const auto& cut : request.cuts) {
-      sc.cut = cut;
-      const ScenarioResult film = run_scenario(sc);
-      row.cut_groups.push_back(film.chain[1].id.type->symbol);
-      row.counts.push_back(counts_at(film, 1));
-    }
+    row.point_group = known->point_group;
+    row.setting = known->setting;
+    row.cut_groups = known->cut_groups;
+    row.counts = known->counts;
   } catch (const Error& e) {
     row = ScreenRow{};
     row.file = file;
@@ -121,7 +192,9 @@ std::vector<std::string> collect_structure_files(const std::vector<std::string>&
 }
 
 std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned threads,
-                                         const std::function<void(std::size_t, std::size_t)>& progress) {
+                                         const std::function<void(std::size_t, std::size_t)>& progress,
+                                         const std::vector<ScreenRow>& already,
+                                         const std::function<void(const ScreenRow&)>& finished) {
   if (request.responses.empty())
     fail(ErrorKind::usage, "no response to screen for", "--response",
          "one or more ids from `tensorsieve responses`, e.g. --response anomalous-hall");
@@ -132,23 +205,43 @@ std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned 
 
   const std::size_t total = request.files.size();
   std::vector<ScreenRow> rows(total);
+  std::map<std::string, const ScreenRow*> known;
+  for (const auto& r : already) known.emplace(r.file, &r);
+  std::vector<std::size_t> todo;
+  for (std::size_t i = 0; i < total; ++i) {
+    auto it = known.find(request.files[i]);
+    if (it != known.end()) rows[i] = *it->second;
+    else todo.push_back(i);
+  }
   if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
-  threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(total, 1)));
+  threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(todo.size(), 1)));
   std::atomic<std::size_t> next{0};
-  std::size_t done = 0;
+  std::size_t done = total - todo.size();
   std::mutex progress_mutex;
+  std::exception_ptr failure; // from `finished`: the first one stops the run
+  GroupCache cache;
   auto work = [&] {
-    for (std::size_t i = next++; i < total; i = next++) {
-      rows[i] = screen_one(request.files[i], request);
+    for (std::size_t k = next++; k < todo.size(); k = next++) {
+      const std::size_t i = todo[k];
+      rows[i] = screen_one(request.files[i], request, &cache);
       std::lock_guard<std::mutex> lock(progress_mutex);
+      if (failure) return;
       ++done;
-      if (progress) progress(done, total);
+      try {
+        if (finished) finished(rows[i]);
+        if (progress) progress(done, total);
+      } catch (...) {
+        failure = std::current_exception();
+        next = todo.size();
+        return;
+      }
     }
   };
   std::vector<std::thread> pool;
   for (unsigned t = 1; t < threads; ++t) pool.emplace_back(work);
   work();
   for (auto& t : pool) t.join();
+  if (failure) std::rethrow_exception(failure);
   return rows;
 }
 

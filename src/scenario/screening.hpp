@@ -3,7 +3,10 @@
 // independent components, in the bulk and at each asked film cut. Files are
 // independent, so they are spread over a pool of threads; every row depends
 // only on its file, so the rows (and the bytes written from them) are the same
-// for any number of threads.
+// for any number of threads. What depends on the point group alone (its forms
+// for every response, in the bulk and at each cut) is worked out once per run
+// and shared by every file of that group: the symmetry search runs per file,
+// the tensor work per group.
 #pragma once
 
 #include "lowering/structure_file.hpp"
@@ -45,9 +48,15 @@ std::vector<std::string> collect_structure_files(const std::vector<std::string>&
 
 // Checks the response ids once (an unknown id throws before any work), then
 // screens every file on `threads` threads (0: one per core). A file that fails
-// gets its error in its row. `progress(done, total)` is called after each
-// file, from the thread that finished it, one call at a time.
+// gets its error in its row; a crash of the symmetry library on a file is such
+// an error too (the search runs in a child process). `progress(done, total)`
+// is called after each file, from the thread that finished it, one call at a
+// time. Rows in `already` (a resumed run, screen_journal.hpp) are taken for
+// their files as they are; `finished(row)` is called, under the same lock as
+// `progress`, with every row computed in this call.
 std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned threads,
-                                         const std::function<void(std::size_t, std::size_t)>& progress = {});
+                                         const std::function<void(std::size_t, std::size_t)>& progress = {},
+                                         const std::vector<ScreenRow>& already = {},
+                                         const std::function<void(const ScreenRow&)>& finished = {});
 
 } // namespace ts
