@@ -49,6 +49,7 @@ int main(int argc, char** argv) {
   ts::cli::setup_responses(app);
   ts::cli::setup_observe(app);
   ts::cli::setup_screen(app);
+  ts::cli::setup_fit(app);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

@@ -16,4 +16,9 @@ namespace ts {
 // scenario is `r`), the page also answers them.
 std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations = nullptr);
 
+// The style sheet of the pages, and an SVG made safe to inline in a page (its ids
+// prefixed), shared with the page of scan fits (fit_html.hpp).
+const char* html_style_sheet();
+std::string html_inline_svg(std::string svg, const std::string& prefix);
+
 } // namespace ts
