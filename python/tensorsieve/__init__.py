@@ -15,6 +15,7 @@ from fractions import Fraction
 
 from ._tensorsieve import (  # noqa: F401  (the public functions)
     Error,
+    fit,
     form,
     group,
     groups,
