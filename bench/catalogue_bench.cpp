@@ -19,6 +19,7 @@
 // target is reported, never turned into a failing exit status: speed is shown,
 // not asserted.
 #include "bench_clock.hpp"
+#include "fit_bench.hpp"
 #include "inverse_bench.hpp"
 
 #include "core/data_dir.hpp"
@@ -519,6 +520,7 @@ int run(const Args& args) {
     print_figure("pump-probe (3 phases) and photocurrents, mm2, 4 polarisations", duration_text(t.median));
   }
   print_inverse_figures(R);
+  print_fit_figures(R);
 
   // ---- memory and summary ---------------------------------------------------------------
   std::printf("\n");

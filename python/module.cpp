@@ -7,9 +7,11 @@
 #include "cli/frame_options.hpp"
 #include "core/data_dir.hpp"
 #include "core/error.hpp"
+#include "fit/scan_fit.hpp"
 #include "group/group_catalogue.hpp"
 #include "group/identify.hpp"
 #include "lowering/structure_file.hpp"
+#include "report/fit_report.hpp"
 #include "report/form_report.hpp"
 #include "report/group_report.hpp"
 #include "report/json_text.hpp"
@@ -174,6 +176,67 @@ py::object survey_report(const std::string& spec, bool magnetic, bool colourless
   const TensorSpec parsed = parse_tensor_spec(spec);
   const auto groups = survey_groups(GroupCatalogue::builtin(), magnetic, colourless);
   return parse_json(write_survey(parsed, ts::survey(parsed, groups), Format::json));
+// A scan fit (docs/fit.md): the scan is a file path, or a dict of columns (header
+// with its unit -> a sequence of numbers, numpy arrays included; "channel" -> a
+// sequence of strings). Returns the JSON of `tensorsieve fit -f json` for this one
+// fit, with the fitted model at every point added to each hypothesis as a numpy
+// array when numpy is importable (a list otherwise).
+py::object fit(const py::object& source, const py::object& data, const std::string& bar, const std::string& probe,
+               int harmonic, const std::string& reading, const std::string& shg, int floor, bool offset, double alpha) {
+  Scenario sc = py::isinstance<py::dict>(source)
+                    ? scenario_from_table(table_from_dict(source.cast<py::dict>(), "scenario"), "scenario dict")
+                    : load_scenario(py::str(source).cast<std::string>());
+  FitSpec spec;
+  spec.name = "fit";
+  spec.bar = bar;
+  spec.probe = probe;
+  spec.harmonic = harmonic;
+  spec.reading = reading;
+  spec.shg = shg;
+  spec.floor = floor;
+  spec.offset = offset;
+  spec.alpha = alpha;
+  spec.where = "fit()";
+  spec.bad_value = ErrorKind::usage;
+  if (harmonic < 0 || harmonic > 5) fail(ErrorKind::usage, "harmonic out of range", "harmonic", "0 to 5");
+  if (floor < 1) fail(ErrorKind::usage, "floor must be at least 1", "floor", "a group order, 1 to 192");
+  if (!(alpha > 0 && alpha < 0.5)) fail(ErrorKind::usage, "alpha must lie between 0 and 0.5", "alpha", "0.01");
+  ScanTable table;
+  if (py::isinstance<py::dict>(data)) {
+    std::vector<std::pair<std::string, std::vector<double>>> columns;
+    std::vector<std::string> channels;
+    for (const auto& [key, value] : data.cast<py::dict>()) {
+      const std::string name = py::str(key).cast<std::string>();
+      if (name == "channel") {
+        for (const auto& c : value) channels.push_back(py::str(c).cast<std::string>());
+        continue;
+      }
+      std::vector<double> v;
+      for (const auto& x : value) v.push_back(x.cast<double>());
+      columns.emplace_back(name, std::move(v));
+    }
+    table = scan_table_from_arrays(columns, channels, "data dict");
+  } else {
+    table = read_scan_table(py::str(data).cast<std::string>());
+  }
+  FitRun run;
+  run.scenario = run_scenario(sc);
+  run.fits.push_back(fit_scan(run.scenario, spec, table));
+  py::object out = parse_json(write_fits(run, Format::json))["fits"][py::int_(0)];
+  py::object numpy = py::none();
+  try {
+    numpy = py::module_::import("numpy");
+  } catch (const py::error_already_set&) {
+    numpy = py::none(); // numpy is optional: lists instead of arrays
+  }
+  py::list hyps = out["hypotheses"];
+  const auto& fits = run.fits.front().hypotheses;
+  for (std::size_t i = 0; i < fits.size(); ++i) {
+    py::list model;
+    for (double v : fits[i].model) model.append(v);
+    hyps[i]["model"] = numpy.is_none() ? py::object(model) : numpy.attr("asarray")(model);
+  }
+  return out;
 }
 
 StructureFileOptions file_options(const std::string& occupancy, double symprec) {
@@ -272,6 +335,10 @@ PYBIND11_MODULE(_tensorsieve, m) {
         "answer the [[observation]] tables of a scenario (dict or TOML file path), as `tensorsieve observe --scenario`");
   m.def("survey", &survey_report, py::arg("spec"), py::arg("magnetic") = false, py::arg("colourless") = false,
         "count a tensor's independent components in every point group, as `tensorsieve survey`");
+  m.def("fit", &fit, py::arg("scenario"), py::arg("data"), py::arg("bar") = "", py::arg("probe") = "transverse",
+        py::arg("harmonic") = 1, py::arg("reading") = "auto", py::arg("shg") = "", py::arg("floor") = 1,
+        py::arg("offset") = false, py::arg("alpha") = 0.01,
+        "fit a measured scan (file path or dict of arrays) against every symmetry hypothesis, as `tensorsieve fit`");
   m.def("structure", &structure, py::arg("path"), py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
         "read a CIF or mCIF file: point group, space group, BNS number, type and notes");
   m.def("screen", &screen, py::arg("paths"), py::arg("responses"), py::arg("cuts") = std::vector<std::string>{},

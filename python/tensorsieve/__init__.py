@@ -35,6 +35,7 @@ from .tables import table
 _DATA = os.path.join(os.path.dirname(os.path.abspath(__file__)), "data")
 if os.path.isdir(os.path.join(_DATA, "groups")):
     _tensorsieve._prefer_data_directory(_DATA)
+from ._tensorsieve import fit  # noqa: F401  (docs/fit.md)
 
 
 def form(group, spec, z="", x="", colourless=False):

@@ -47,5 +47,6 @@ void setup_sample(CLI::App& app);
 void setup_responses(CLI::App& app);
 void setup_observe(CLI::App& app);
 void setup_screen(CLI::App& app);
+void setup_fit(CLI::App& app);
 
 } // namespace ts::cli

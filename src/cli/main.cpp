@@ -141,6 +141,7 @@ int main(int argc, char** argv) {
   ts::cli::setup_responses(app);
   ts::cli::setup_observe(app);
   ts::cli::setup_screen(app);
+  ts::cli::setup_fit(app);
   ts::cli::set_command_line(argc, argv);
   if (argc <= 1) { // a bare `tensorsieve` asks what the program does
     std::cout << app.help();

@@ -47,6 +47,13 @@ void set_curve_style(cairo_t* cr, int index) {
   }
 }
 
+// A measured point: a small filled circle in the current colour.
+void marker(cairo_t* cr, double x, double y) {
+  cairo_new_sub_path(cr);
+  cairo_arc(cr, x, y, 2.2, 0, 2 * pi);
+  cairo_fill(cr);
+}
+
 void set_axis_style(cairo_t* cr, double grey = 0, double width = 0.6) {
   cairo_set_source_rgb(cr, grey, grey, grey);
   cairo_set_line_width(cr, width);
@@ -347,16 +354,19 @@ void draw_polar(cairo_t* cr, const FigureData& f, const Layout& l) {
       text(cr, "max " + tick_text(peak), cx, cy + radius + 17, 0.5);
     }
     if (!(peak > 0)) continue;
-    for (const auto& c : f.panels[p]) {
-      set_curve_style(cr, p + 1);
+    for (std::size_t k = 0; k < f.panels[p].size(); ++k) {
+      const Curve& c = f.panels[p][k];
+      // A panel of a fit holds several curves: each its own style.
+      set_curve_style(cr, f.panels[p].size() > 1 ? static_cast<int>(k) : p + 1);
       cairo_new_path(cr);
       for (std::size_t i = 0; i < c.x.size(); ++i) {
         const double r = radius * std::abs(c.y[i]) / peak, a = c.x[i] * pi / 180;
         const double x = cx + r * std::cos(a), y = cy - r * std::sin(a);
-        if (i == 0) cairo_move_to(cr, x, y);
+        if (c.points) marker(cr, x, y);
+        else if (i == 0) cairo_move_to(cr, x, y);
         else cairo_line_to(cr, x, y);
       }
-      cairo_stroke(cr);
+      if (!c.points) cairo_stroke(cr);
     }
   }
 }
@@ -448,9 +458,13 @@ void draw_line(cairo_t* cr, const FigureData& f, const Layout& l) {
     if (k > 0 && rows[k] != rows[k - 1]) lx = x0;
     const double ly = l.top + 4 + 10 * rows[k];
     set_curve_style(cr, static_cast<int>(k) + 1);
-    cairo_move_to(cr, lx, ly);
-    cairo_line_to(cr, lx + 20, ly);
-    cairo_stroke(cr);
+    if (c.points) {
+      marker(cr, lx + 10, ly);
+    } else {
+      cairo_move_to(cr, lx, ly);
+      cairo_line_to(cr, lx + 20, ly);
+      cairo_stroke(cr);
+    }
     set_axis_style(cr);
     text(cr, c.label, lx + 24, ly + 2.5);
     lx += 34 + text_width(cr, c.label);
@@ -460,10 +474,11 @@ void draw_line(cairo_t* cr, const FigureData& f, const Layout& l) {
     set_curve_style(cr, static_cast<int>(k) + 1);
     cairo_new_path(cr);
     for (std::size_t i = 0; i < c.x.size(); ++i) {
-      if (i == 0) cairo_move_to(cr, X(c.x[i]), Y(c.y[i]));
+      if (c.points) marker(cr, X(c.x[i]), Y(c.y[i]));
+      else if (i == 0) cairo_move_to(cr, X(c.x[i]), Y(c.y[i]));
       else cairo_line_to(cr, X(c.x[i]), Y(c.y[i]));
     }
-    cairo_stroke(cr);
+    if (!c.points) cairo_stroke(cr);
   }
   if (f.sketch.present) draw_sketch(cr, f.sketch, 8, y0 + 30, l.w - 16);
 }

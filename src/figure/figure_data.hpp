@@ -20,6 +20,7 @@ namespace ts {
 struct Curve {
   std::string label;
   std::vector<double> x, y; // x in degrees
+  bool points = false;      // measured points (markers), not a line
 };
 
 enum class FigureKind { polar, line, rosette };

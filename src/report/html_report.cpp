@@ -66,6 +66,9 @@ void figures_section(const ScenarioResult& r, std::ostream& os) {
 
 } // namespace
 
+const char* html_style_sheet() { return style_sheet; }
+std::string html_inline_svg(std::string svg, const std::string& prefix) { return inline_svg(std::move(svg), prefix); }
+
 std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations, const HtmlStamp& stamp) {
   const Scenario& sc = r.scenario;
   const std::string title = sc.title.empty() ? "tensorsieve scenario" : sc.title;

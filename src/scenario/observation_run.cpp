@@ -88,6 +88,8 @@ std::string strain_form_words(const AllowedForm& f) {
   return join(shown, ", ") + (other ? " and further components (see `tensorsieve form`)" : "") + " (sample frame)";
 }
 
+} // namespace
+
 std::string producer_words(const Producer& p, const PointGroup& h, const Frame& frame, LatticeKind lattice,
                            const LatticeMetric& m) {
   switch (p.kind) {
@@ -103,8 +105,6 @@ std::string producer_words(const Producer& p, const PointGroup& h, const Frame& 
   }
   return "";
 }
-
-} // namespace
 
 void answer_observation(const PointGroup& parent, const Frame& frame, const LatticeMetric& metric,
                         const Observation& observation, ObservationAnswer& a) {

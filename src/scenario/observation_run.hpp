@@ -40,6 +40,10 @@ struct ObservationRun {
 
 // The search for any observation (components, or a signal of a bar given by its
 // own predicate) and the words for each solution, filled into `answer`.
+// Words for what imposes exactly h (a polar displacement along [uvw], a strain of
+// a given form, ...), for reports of the inverse search and of fits.
+std::string producer_words(const Producer& p, const PointGroup& h, const Frame& frame, LatticeKind lattice,
+                           const LatticeMetric& m);
 void answer_observation(const PointGroup& parent, const Frame& frame, const LatticeMetric& metric,
                         const Observation& observation, ObservationAnswer& answer);
 

@@ -339,6 +339,53 @@ void read_kerr(const toml::table& root, const std::string& path, Scenario& sc) {
   }
 }
 
+void read_fits(const toml::table& root, const std::string& path, Scenario& sc) {
+  auto node = root.get("fit");
+  if (!node) return;
+  auto arr = node->as_array();
+  if (!arr) fail(ErrorKind::bad_file, "'fit' must be an array of tables [[fit]]", at(path, node->source()));
+  for (auto& el : *arr) {
+    auto t = el.as_table();
+    if (!t) fail(ErrorKind::bad_file, "each [[fit]] entry must be a table", at(path, el.source()));
+    check_keys(*t, {"name", "data", "bar", "shg", "probe", "harmonic", "reading", "floor", "offset", "alpha"}, path,
+               "[[fit]]", "(docs/fit.md)");
+    FitSpec f;
+    f.where = at(path, t->source());
+    f.name = get_string(*t, "name", path, false, "a string");
+    if (f.name.empty()) f.name = "fit " + std::to_string(sc.fits.size() + 1);
+    // A relative path is read from the scenario's folder, so a scenario and its scan travel together.
+    std::filesystem::path data = get_string(*t, "data", path, true, "a scan file (CSV, TSV), relative to this file", "[[fit]]");
+    if (data.is_relative()) data = std::filesystem::path(path).parent_path() / data;
+    f.data = data.string();
+    f.bar = get_string(*t, "bar", path, false, "a [[bar]] name or number");
+    f.shg = get_string(*t, "shg", path, false, "an [[shg]] name or number");
+    std::string probe = get_string(*t, "probe", path, false, "\"longitudinal\" or \"transverse\"");
+    if (!probe.empty()) f.probe = probe;
+    std::string reading = get_string(*t, "reading", path, false, "\"x\", \"y\" or \"auto\"");
+    if (!reading.empty()) f.reading = reading;
+    auto integer = [&](const char* key, int lo, int hi, int& out) {
+      if (auto n = t->get(key)) {
+        auto v = n->value<std::int64_t>();
+        if (!n->is_integer() || !v || *v < lo || *v > hi)
+          fail(ErrorKind::bad_file, std::string("'") + key + "' in [[fit]] must be an integer from " + std::to_string(lo) +
+                                        " to " + std::to_string(hi), at(path, n->source()));
+        out = static_cast<int>(*v);
+      }
+    };
+    integer("harmonic", 0, 5, f.harmonic);
+    integer("floor", 1, 192, f.floor);
+    if (auto b = toml_read::get_bool(*t, "offset", path, "[[fit]]")) f.offset = *b;
+    if (auto a = t->get("alpha")) {
+      auto v = a->value<double>();
+      if (!v || !(*v > 0 && *v < 0.5))
+        fail(ErrorKind::bad_file, "'alpha' in [[fit]] must be a significance level between 0 and 0.5",
+             at(path, a->source()), "alpha = 0.01");
+      f.alpha = *v;
+    }
+    sc.fits.push_back(f);
+  }
+}
+
 void read_figures(const toml::table& root, const std::string& path, Scenario& sc) {
   auto node = root.get("figures");
   if (!node) return;
@@ -430,7 +477,7 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   Scenario sc;
   sc.source = path;
   check_keys(root, {"title", "crystal", "sample", "lowering", "responses", "tensors", "report", "bar", "layout", "observation", "shg", "kerr", "pump_probe", "photocurrent", "figures",
-              "expansion"},
+              "expansion", "fit"},
              path, "the scenario");
   sc.title = get_string(root, "title", path, false, "a string");
   auto crystal = root["crystal"].as_table();
@@ -545,6 +592,7 @@ Scenario scenario_from_table(const toml::table& root, const std::string& path) {
   read_expansion(root, path, sc);
   read_pump_tables(root, path, sc);
   read_figures(root, path, sc);
+  read_fits(root, path, sc);
   if (auto rep = root["report"].as_table()) {
     check_keys(*rep, {"domains", "domain_fractions"}, path, "[report]");
     if (auto d = rep->get("domains")) {

@@ -144,6 +144,23 @@ struct FigureSpec {
   std::string where;
 };
 
+// A measured scan to compare with every symmetry hypothesis (docs/fit.md): the
+// data file and which measurement of the scenario it is.
+struct FitSpec {
+  std::string name;
+  std::string data;                // scan file; in a scenario file, relative to the scenario
+  std::string bar;                 // [[bar]] name or 1-based number (transport); empty: the first bar
+  std::string shg;                 // [[shg]] name or 1-based number (optical scans); empty: the first setup
+  std::string probe = "transverse"; // longitudinal or transverse
+  int harmonic = 1;                // lock-in harmonic of the drive (0: DC)
+  std::string reading = "auto";    // x, y or auto (the reading the bar's parts give at that harmonic)
+  int floor = 1;                   // smallest group order among the hypotheses
+  bool offset = false;             // fit an unknown offset between the stage angle and sample x
+  double alpha = 0.01;             // significance level of the rejections
+  std::string where;
+  ErrorKind bad_value = ErrorKind::bad_file; // usage for an option, bad_file in a file
+};
+
 struct Scenario {
   std::string title;
   std::string source = "command line";
@@ -181,6 +198,7 @@ struct Scenario {
   std::vector<PumpProbeSpec> pump_probe;         // [[pump_probe]] tables
   std::vector<PhotocurrentSpec> photocurrents;   // [[photocurrent]] tables
   FigureSpec figures;                            // [figures] table
+  std::vector<FitSpec> fits;                     // [[fit]] tables
 };
 
 Scenario load_scenario(const std::string& path); // throws Error(bad_file / ...) with file:line:column

@@ -1,0 +1,97 @@
+// `tensorsieve fit`: the example scan end to end, the formats, and bad input
+// (located messages, non-zero exits, nothing on standard output).
+#include "support/cli_run.hpp"
+
+#include <catch2/catch.hpp>
+
+#include <fstream>
+
+using ts::test::run_cli;
+
+namespace {
+
+const std::string kExample = std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/threefold-film-scan.toml";
+
+void write(const std::filesystem::path& p, const std::string& text) {
+  std::ofstream out(p, std::ios::binary);
+  out << text;
+}
+
+const std::string kScenario =
+    ts::test::read_file(std::string(TENSORSIEVE_SOURCE_DIR) + "/tests/data/fit-threefold-film.toml") +
+    "[[fit]]\ndata = \"scan.csv\"\nharmonic = 2\n";
+
+} // namespace
+
+TEST_CASE("fit: the invented example scan requires lowering the threefold film", "[fit][cli]") {
+  auto r = run_cli({"fit", kExample});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  CHECK(r.out.find("scan fits: Invented (111) film") != std::string::npos);
+  CHECK(r.out.find("ranking (lowest AIC first") != std::string::npos);
+  CHECK(r.out.find("symmetry breaking: the data require lowering 3m1'") != std::string::npos);
+  CHECK(r.out.find("highest symmetry not rejected: m1' (mirror ⊥ [1-10])") != std::string::npos);
+  for (const char* format : {"markdown", "latex", "json"}) {
+    auto f = run_cli({"fit", kExample, "--format", format});
+    INFO(format << ": " << f.err);
+    CHECK(f.exit_code == 0);
+    CHECK(f.out.find("m1'") != std::string::npos);
+  }
+  auto h = run_cli({"fit", kExample, "--format", "html"});
+  CHECK(h.exit_code == 0);
+  CHECK(h.out.rfind("<!DOCTYPE html>", 0) == 0);
+  CHECK(h.out.find("<h3>Verdict</h3>") != std::string::npos);
+  CHECK(h.out.find("<svg") != std::string::npos);
+  auto j = run_cli({"fit", kExample, "--format", "json"});
+  CHECK(j.out.rfind("{", 0) == 0);
+  CHECK(j.out.find("\"akaike_weight\"") != std::string::npos);
+}
+
+TEST_CASE("fit: a scan that does not parse stops the fit with its position", "[fit][cli]") {
+  ts::test::TempDir dir;
+  write(dir / "film.toml", kScenario);
+  write(dir / "scan.csv", "phi_deg, Y_uV\n0, 1.0\n30, 0,5\n");
+  auto r = run_cli({"fit", (dir / "film.toml").string()});
+  CHECK(r.exit_code == 5);
+  CHECK(r.out.empty());
+  CHECK(r.err.find("scan.csv:3:") != std::string::npos);
+  CHECK(r.err.find("decimal comma") != std::string::npos);
+
+  write(dir / "scan.csv", "B_T, Y_uV\n0, 1.0\n");
+  r = run_cli({"fit", (dir / "film.toml").string()});
+  CHECK(r.exit_code == 5);
+  CHECK(r.err.find("the bar's geometry turns phi during the scan, and the file has no column for it") != std::string::npos);
+
+  write(dir / "scan.csv", "phi_deg, X_uV\n0, 1.0\n");
+  r = run_cli({"fit", (dir / "film.toml").string()});
+  CHECK(r.exit_code == 5);
+  CHECK(r.err.find("Y (quadrature)") != std::string::npos);
+
+  std::filesystem::remove(dir / "scan.csv");
+  r = run_cli({"fit", (dir / "film.toml").string()});
+  CHECK(r.exit_code == 5);
+  CHECK(r.err.find("cannot read the scan file") != std::string::npos);
+}
+
+TEST_CASE("fit: bad options are usage errors", "[fit][cli]") {
+  auto r = run_cli({"fit", kExample, "--data", "x.csv", "--harmonic", "9"});
+  CHECK(r.exit_code == 2);
+  r = run_cli({"fit", kExample, "--data", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/threefold-film-scan.csv",
+               "--probe", "diagonal"});
+  CHECK(r.exit_code == 2);
+  CHECK(r.err.find("unknown probe 'diagonal'") != std::string::npos);
+}
+
+TEST_CASE("fit: --figures writes the data with the best fits and the residuals", "[fit][cli][figures]") {
+  ts::test::TempDir dir;
+  auto r = run_cli({"fit", kExample, "--figures", (dir / "figs").string()});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  for (const char* name : {"fit-1-data.svg", "fit-1-data.pdf", "fit-1-residuals.svg", "fit-1-residuals.pdf",
+                           "fit-1-data.caption.txt"}) {
+    INFO(name);
+    CHECK(std::filesystem::exists(dir / "figs" / name));
+  }
+  const std::string svg = ts::test::read_file(dir / "figs" / "fit-1-data.svg");
+  CHECK(svg.find("<svg") != std::string::npos);
+}
