@@ -499,6 +499,7 @@ int run(const Args& args) {
     Scenario torques = load_scenario(std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/magnetised-film-harmonic-hall.toml");
     Timing tt = time_repeated(R, [&] { (void)run_scenario(torques); });
     print_figure("run: harmonic Hall to third order in m (rank-6 expansion), sums and plan", duration_text(tt.median));
+  }
   // ---- light-driven: pump-probe across a spin reorientation, photocurrents of a film -------
   {
     Scenario sc;

@@ -176,6 +176,8 @@ py::object survey_report(const std::string& spec, bool magnetic, bool colourless
   const TensorSpec parsed = parse_tensor_spec(spec);
   const auto groups = survey_groups(GroupCatalogue::builtin(), magnetic, colourless);
   return parse_json(write_survey(parsed, ts::survey(parsed, groups), Format::json));
+}
+
 // A scan fit (docs/fit.md): the scan is a file path, or a dict of columns (header
 // with its unit -> a sequence of numbers, numpy arrays included; "channel" -> a
 // sequence of strings). Returns the JSON of `tensorsieve fit -f json` for this one
