@@ -99,7 +99,7 @@ TEST_CASE("usage: every format is listed, html where it is written", "[cli][usag
   CHECK_THAT(bad.err, Catch::Contains("text, markdown, latex, json, html"));
   const CliResult html = run_cli({"form", "4mm", "V", "-f", "html"});
   check_usage_error(html);
-  CHECK_THAT(html.err, Catch::Contains("`run` and `sample`"));
+  CHECK_THAT(html.err, Catch::Contains("`run`, `sample` and `fit`"));
 }
 
 TEST_CASE("usage: -o says which file it wrote", "[cli][usage]") {

@@ -60,7 +60,7 @@ TEST_CASE("RA-SHG of a 3m surface at normal incidence: sin²3φ and cos²3φ lob
   const HypothesisFit* top = accepted(r);
   REQUIRE(top);
   CHECK(top->hypothesis.symbol.rfind("3m1'", 0) == 0);
-  CHECK(top->functions == std::vector<std::string>{"PP: 1, cos(6phi)", "SS: 1, cos(6phi)"});
+  CHECK(top->functions == std::vector<std::string>{"PP: 1, cos(6*phi)", "SS: 1, cos(6*phi)"});
   REQUIRE(top->curve.size() == 2);
   REQUIRE(r.curve_deg[15] == 30);
   CHECK(top->curve[0][0] == Approx(0).margin(0.02));  // PP dark at φ = 0
@@ -103,7 +103,7 @@ TEST_CASE("RA-SHG with six azimuths cannot separate the sixfold harmonic from th
   FitResult r = fit_scan(res, spec, scan_table_from_arrays({{"azimuth_deg", az}, {"intensity", in}}, ch, "six"));
   bool said = false;
   for (const auto& h : r.hypotheses)
-    if (!h.fitted && h.not_fitted.find("cannot separate the intensity harmonics 1, cos(6phi)") != std::string::npos)
+    if (!h.fitted && h.not_fitted.find("cannot separate the intensity harmonics 1, cos(6*phi)") != std::string::npos)
       said = true;
   CHECK(said);
 }

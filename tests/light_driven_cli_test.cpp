@@ -49,12 +49,13 @@ TEST_CASE("the light-driven examples in every format", "[light][cli][formats]") 
     auto r = run_cli({"run", example("spin-reorientation-pump-probe.toml"), "-f", f, "-o", out});
     REQUIRE(r.exit_code == 0);
     const std::string text = read_file(out);
-    const std::string f_zz = std::string(f) == "latex" ? "F_{zz}" : "F_zz";
+    // The HTML page sets the Markdown report's formulas: F_zz as an italic symbol with a subscript.
+    const std::string f_zz = std::string(f) == "latex" ? "F_{zz}" : std::string(f) == "html" ? "<i>F</i><sub>zz</sub>" : "F_zz";
     CHECK(text.find(std::string(f) == "json" ? "\"sees\"" : "sees circular+") != std::string::npos);
     CHECK(text.find(f_zz) != std::string::npos);
   }
   const std::string html = read_file(dir / "pp.html");
-  CHECK(html.find("<h2>Light that drives the order and currents</h2>") != std::string::npos);
+  CHECK(html.find("<td>pump torque</td>") != std::string::npos);
   const std::string out = (dir / "pc.html").string();
   REQUIRE(run_cli({"run", example("polar-film-photocurrents.toml"), "-f", "html", "-o", out}).exit_code == 0);
   CHECK(read_file(out).find("helicity-odd part read by") != std::string::npos);

@@ -103,6 +103,4 @@ try:
     plt.savefig(os.path.join(folder, "shg.png"))
     print("plot written to", os.path.join(folder, "shg.png"))
 except ImportError:
-    for deg in (0, 45, 90):
-        # A float angle: lambdify uses numpy's sin when numpy is installed, which takes no sympy number.
-        print(f"phi = {deg:3d} deg: |P|^2 = {float(intensity(float(sympy.pi * deg / 180))):.3f}")
+    print("(matplotlib is not installed: no plot)")

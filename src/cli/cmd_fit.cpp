@@ -33,11 +33,11 @@ void setup_fit(CLI::App& app) {
   cmd->add_option("--harmonic", o->spec.harmonic, "lock-in harmonic of the drive, 0 for DC (default 1)");
   cmd->add_option("--reading", o->spec.reading, "x, y or auto (default: the output the bar's parts give)");
   cmd->add_option("--floor", o->spec.floor, "smallest group order among the hypotheses (default 1: every subgroup)");
-  cmd->add_flag("--offset", o->spec.offset, "fit an unknown offset φ0 between the stage angle and sample x");
+  cmd->add_flag("--offset", o->spec.offset, "fit an unknown offset phi0 between the stage angle and sample x");
   cmd->add_option("--alpha", o->spec.alpha, "significance level of the rejections (default 0.01)");
   cmd->add_option("--figures", o->figures,
                   "write the figures (data with the best fits, residuals; SVG and PDF) into this directory");
-  add_output_options(*cmd, o->out);
+  add_output_options(*cmd, o->out, true);
   cmd->callback([o] {
     const bool html = o->out.format == "html";
     const Format f = html ? Format::text : parse_format(o->out.format);

@@ -13,7 +13,7 @@ namespace ts::cli {
 struct OutputOptions {
   std::string format = "text";
   std::string output = "-";
-  bool html = false; // the subcommand writes the html page too (run, sample)
+  bool html = false; // the subcommand writes the html page too (run, sample, fit)
   int width = -1;     // --width; -1: the terminal's when standard output is one, else no wrapping
 };
 void add_output_options(CLI::App& cmd, OutputOptions& o, bool html = false);

@@ -80,7 +80,7 @@ void add_output_options(CLI::App& cmd, OutputOptions& o, bool html) {
 void check_format(const OutputOptions& o) {
   if (o.html && o.format == "html") return;
   if (o.format == "html")
-    fail(ErrorKind::usage, "the html page is written by `run` and `sample` only", "--format",
+    fail(ErrorKind::usage, "the html page is written by `run`, `sample` and `fit` only", "--format",
          "text, markdown, latex, json");
   try {
     parse_format(o.format);

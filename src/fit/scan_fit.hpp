@@ -29,7 +29,7 @@ namespace ts {
 // A fitted quantity: the coefficient of one model function (transport), a
 // real or imaginary part of a susceptibility (SHG), or the offset φ0.
 struct FitParameter {
-  std::string name;  // "cos(3phi)", "Re chi_xxy", "phi0 (deg)"
+  std::string name;  // "cos(3*phi)", "Re chi_xxy", "phi0 (deg)"
   // What it measures, exactly: Σ factor·parameter (empty for φ0 and SHG parts).
   std::vector<std::pair<std::string, Surd>> meaning;
   double value = 0, error = 0; // error: one standard deviation
@@ -47,7 +47,7 @@ struct HypothesisFit {
   Hypothesis hypothesis;
   std::vector<PointGroup> groups;      // the hypothesis' group and those of same_model (nested tests)
   std::vector<std::string> same_model; // further hypotheses whose model on this scan is the same
-  std::vector<std::string> functions;  // the model's functions, for people ("cos(3phi)")
+  std::vector<std::string> functions;  // the model's functions, for people ("cos(3*phi)")
   std::vector<std::string> tensor_parameters; // free parameters that enter
   bool fitted = true;
   std::string not_fitted; // why not (aliasing, too few points)

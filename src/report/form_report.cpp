@@ -5,6 +5,7 @@
 #include "report/expression_text.hpp"
 
 #include <map>
+#include <algorithm>
 #include <sstream>
 
 namespace ts {
@@ -265,10 +266,15 @@ std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameC
   if (!params.empty()) os << ": $" << join(params, ",\\ ") << "$";
   os << ".\n";
   if (!groups.empty()) {
-    os << "\\begin{align*}\n";
-    for (std::size_t i = 0; i < groups.size(); ++i)
-      os << "  " << join(groups[i].first, " = ") << " &= " << groups[i].second << (i + 1 < groups.size() ? " \\\\\n" : "\n");
-    os << "\\end{align*}\n";
+    // A display cannot break across pages: long lists of relations come in blocks.
+    constexpr std::size_t kRowsPerBlock = 30;
+    for (std::size_t first = 0; first < groups.size(); first += kRowsPerBlock) {
+      const std::size_t last = std::min(groups.size(), first + kRowsPerBlock);
+      os << "\\begin{align*}\n";
+      for (std::size_t i = first; i < last; ++i)
+        os << "  " << join(groups[i].first, " = ") << " &= " << groups[i].second << (i + 1 < last ? " \\\\\n" : "\n");
+      os << "\\end{align*}\n";
+    }
   }
   for (const auto& v : views) {
     os << "% " << v.title << "\n\\[\n\\begin{pmatrix}\n";

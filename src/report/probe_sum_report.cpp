@@ -88,21 +88,20 @@ std::string write_probe_sums(const ScenarioResult& r, Format f) {
   for (const auto& b : r.bars) {
     const BarMeasurement& m = b.measurement;
     const ProbeSum& s = b.sum;
-    os << heading(m.name + ": current " + m.current_label + "; field " +
-                      (m.field_label.empty() ? field_geometry_name(m.field) : m.field_label) + "; " +
-                      (m.waveform == Waveform::sine ? "sine" : "cosine") + " drive",
+    // With the field and the magnetisation along one direction, its angles are named
+    // after the magnetisation (the field only saturates it), as in the bar section.
+    bool any_m = false;
+    for (const auto& mech : s.mechanisms) any_m = any_m || mech.magnetisation_order > 0;
+    const bool m_only = any_m;
+    const std::string direction = m.field_label.empty() ? field_geometry_name(m.field) : m.field_label;
+    os << heading(m.name + ": current " + m.current_label + "; " +
+                      (m_only ? "field and magnetisation " + as_magnetisation_angles(direction) : "field " + direction) +
+                      "; " + (m.waveform == Waveform::sine ? "sine" : "cosine") + " drive",
                   f, 3);
-    // Only expansions in M read the bar's direction: its angles are the magnetisation's.
-    bool any_m = false, any_b = false;
-    for (const auto& mech : s.mechanisms) {
-      any_m = any_m || mech.magnetisation_order > 0;
-      any_b = any_b || mech.field_order > 0;
-    }
-    const bool m_only = any_m && !any_b;
     if (s.magnetisation_follows_field)
       os << bullet(f)
-         << prose("the bar's one direction carries both the field and the saturated magnetisation: φ_B is also the "
-                  "magnetisation angle",
+         << prose("the bar's one direction carries both the field and the saturated magnetisation: φ_M, the "
+                  "magnetisation's angle, is also the field's",
                   f)
          << line(f);
     for (const auto& silent : s.silent) os << bullet(f) << prose("not read here: " + silent, f) << line(f);
@@ -125,7 +124,17 @@ std::string write_probe_sums(const ScenarioResult& r, Format f) {
                                         : std::string()),
                         signal_text(r, mech, t, f, m_only)});
       }
-      os << grid({"#", "mechanism", "order", "B", "M", "type", "lock-in", "S"}, rows, f) << "\n";
+      if (f == Format::latex) {
+        // A list on the page: each term's formula wraps with the text instead of
+        // widening a table column.
+        os << "\\begin{itemize}\n";
+        for (const auto& row : rows)
+          os << "\\item[" << row[0] << "] " << row[1] << ": " << row[2] << "; B " << row[3] << ", M " << row[4]
+             << "; type " << row[5] << "; lock-in " << row[6] << ";\\\\ S = " << row[7] << "\n";
+        os << "\\end{itemize}\n";
+      } else {
+        os << grid({"#", "mechanism", "order", "B", "M", "type", "lock-in", "S"}, rows, f) << "\n";
+      }
       if (rd.separations.empty()) continue;
       std::vector<std::vector<std::string>> sep;
       std::vector<std::string> notes; // what tells apart beyond symmetry, each once

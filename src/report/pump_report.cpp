@@ -89,7 +89,7 @@ std::string write_tables(const std::vector<std::pair<std::string, std::vector<Re
     for (const auto& t : tables) {
       if (!t.title.empty()) os << (f == Format::markdown ? "**" : "") << prose(t.title, f) << (f == Format::markdown ? "**" : "") << "\n\n";
       if (!t.note.empty()) os << prose(t.note, f) << "\n\n";
-      if (!t.header.empty()) os << grid(t.header, t.rows, f) << "\n";
+      if (!t.header.empty()) os << (f == Format::latex ? row_list(t.header, t.rows) : grid(t.header, t.rows, f)) << "\n";
     }
   }
   return os.str();

@@ -276,6 +276,19 @@ std::string latex_cell(const std::string& s) {
 }
 } // namespace
 
+std::string row_list(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows) {
+  std::ostringstream os;
+  os << "\\begin{itemize}\n";
+  for (const auto& r : rows) {
+    os << "\\item ";
+    for (std::size_t i = 0; i < header.size() && i < r.size(); ++i)
+      os << (i ? "; " : "") << (i ? latex_cell(header[i]) + ": " : "") << latex_cell(r[i]);
+    os << "\n";
+  }
+  os << "\\end{itemize}\n";
+  return os.str();
+}
+
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows, Format f) {
   std::ostringstream os;
   if (f == Format::latex) {
@@ -343,14 +356,19 @@ std::string grid(const std::vector<std::string>& header, const std::vector<std::
     // its header, of at most kRows rows.
     constexpr std::size_t kRows = 36;
     for (std::size_t first = 0; first < rows.size() || first == 0; first += kRows) {
-      os << (first ? "\n" : "") << "\\noindent\\begin{tabular}{" << columns << "}\n\\hline\n";
+      // A table with paragraph columns is set a size smaller with narrower gaps, so its
+      // unbreakable cells (formulas, long words) stay inside the text block.
+      const bool tight = std::find(paragraph.begin(), paragraph.end(), true) != paragraph.end();
+      os << (first ? "\n" : "") << (tight ? "{\\small\\setlength{\\tabcolsep}{3pt}" : "")
+         << "\\noindent\\begin{tabular}{" << columns << "}\n\\hline\n";
       for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << cell(header, i);
       os << " \\tabularnewline\n\\hline\n";
       for (std::size_t k = first; k < rows.size() && k < first + kRows; ++k) {
         for (std::size_t i = 0; i < header.size(); ++i) os << (i ? " & " : "") << cell(rows[k], i);
         os << " \\tabularnewline\n";
       }
-      os << "\\hline\n\\end{tabular}\n";
+      os << "\\hline\n\\end{tabular}" << (std::find(paragraph.begin(), paragraph.end(), true) != paragraph.end() ? "}" : "")
+         << "\n";
       if (rows.empty()) break;
     }
     return os.str();

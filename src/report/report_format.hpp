@@ -27,6 +27,10 @@ std::string wrap_text(const std::string& text, std::size_t columns);
 std::string grid(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows,
                  Format f);
 
+// A LaTeX list with one item per row, each cell after its column's name: for tables
+// with many wide columns of formulas, which wrap as text where a tabular cannot.
+std::string row_list(const std::vector<std::string>& header, const std::vector<std::vector<std::string>>& rows);
+
 // A symbol or command set in code type: `x` in Markdown, \texttt{x} in LaTeX, plain in text.
 std::string inline_code(const std::string& s, Format f);
 
