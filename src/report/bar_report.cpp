@@ -2,6 +2,7 @@
 
 #include "core/text.hpp"
 #include "report/expression_text.hpp"
+#include "report/report_prose.hpp"
 #include "report/series_text.hpp"
 
 #include <algorithm>
@@ -13,19 +14,7 @@ namespace ts {
 
 namespace {
 
-TextStyle style_of(Format f) { return f == Format::latex ? TextStyle::latex : TextStyle::plain; }
-
-// Prose in LaTeX text mode: _ ^ & ... escaped; the Unicode symbols become commands in finish().
-std::string prose(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
-
-std::string math(const std::string& s, Format f) {
-  return f == Format::latex ? "$" + s + "$" : f == Format::markdown ? "`" + s + "`" : s;
-}
-
-std::string line(Format f) { return f == Format::latex ? "\\\\\n" : "\n"; }
-std::string bullet(Format f) { return f == Format::markdown ? "- " : (f == Format::latex ? "" : "  "); }
-// A line under the previous bullet: nested in Markdown, indented in text.
-std::string sub_bullet(Format f) { return f == Format::markdown ? "  - " : (f == Format::latex ? "\\quad " : "    "); }
+using namespace prose_text;
 
 std::string heading(const std::string& s, Format f, int level) {
   if (f == Format::markdown) return std::string(level + 1, '#') + " " + s + "\n\n";
