@@ -17,7 +17,8 @@ LinearSolution solve_linear(const Eigen::MatrixXd& F, const Eigen::VectorXd& y) 
     s.cost = y.squaredNorm();
     return s;
   }
-  Eigen::JacobiSVD<Eigen::MatrixXd> svd(F, Eigen::ComputeThinU | Eigen::ComputeThinV);
+  // The full V: with fewer points than functions a null vector lies beyond the thin V.
+  Eigen::JacobiSVD<Eigen::MatrixXd> svd(F, Eigen::ComputeThinU | Eigen::ComputeFullV);
   const Eigen::VectorXd& sv = svd.singularValues();
   // Singular values below 1e-9 of the largest count as zero (as for the layout designs).
   const double tol = 1e-9 * (sv.size() ? sv(0) : 0.0);
