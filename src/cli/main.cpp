@@ -100,7 +100,9 @@ void add_colourless_flag(CLI::App& cmd, bool& colourless) {
 }
 
 void emit(const OutputOptions& o, const std::string& text) {
-  write_output(o.output, o.format == "text" ? wrap_text(text, text_width()) : text);
+  // JSON escapes control characters itself; every other format is read as text.
+  const std::string safe = o.format == "json" ? text : without_control_characters(text);
+  write_output(o.output, o.format == "text" ? wrap_text(safe, text_width()) : safe);
   std::cerr << g_note;
   if (o.output != "-") std::cerr << "tensorsieve: wrote " << o.output << "\n";
 }

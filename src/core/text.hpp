@@ -82,4 +82,29 @@ inline std::string printable_message(const std::string& text, std::size_t max_li
   return out;
 }
 
+// A report made safe for a terminal or a pager: control characters that users'
+// strings (a title, a label) may carry are replaced by U+FFFD, so an escape
+// sequence in a scenario file cannot move the cursor, recolour or retitle the
+// terminal. Newline and tab stay; so do carriage returns of CRLF line ends.
+// C1 controls (U+0080 to U+009F, UTF-8 C2 80 to C2 9F) are replaced too: some
+// terminals read U+009B as the start of an escape sequence.
+inline std::string without_control_characters(const std::string& text) {
+  std::string out;
+  out.reserve(text.size());
+  for (std::size_t i = 0; i < text.size(); ++i) {
+    const unsigned char c = static_cast<unsigned char>(text[i]);
+    const bool crlf = c == '\r' && i + 1 < text.size() && text[i + 1] == '\n';
+    if ((c < 0x20 && c != '\n' && c != '\t' && !crlf) || c == 0x7F) {
+      out += "\xEF\xBF\xBD";
+    } else if (c == 0xC2 && i + 1 < text.size() && static_cast<unsigned char>(text[i + 1]) >= 0x80 &&
+               static_cast<unsigned char>(text[i + 1]) <= 0x9F) {
+      out += "\xEF\xBF\xBD";
+      ++i;
+    } else {
+      out += static_cast<char>(c);
+    }
+  }
+  return out;
+}
+
 } // namespace ts
