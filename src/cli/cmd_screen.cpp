@@ -1,4 +1,4 @@
-// tensorsieve screen PATHS... --response ID ... [--cut (hkl)] [--threads N]
+// tensorsieve screen PATHS... --response ID ... [--cut (hkl)] [--jobs N]
 #include "cli/commands.hpp"
 #include "core/error.hpp"
 #include "report/screen_report.hpp"
@@ -56,7 +56,8 @@ void setup_screen(CLI::App& app) {
   cmd->add_option("--cut", o->request.cuts, "film cut to screen as well, e.g. (001) (repeatable)");
   cmd->add_option("--occupancy", o->occupancy, "partial occupancy: refuse (default, the row fails) or ignore");
   cmd->add_option("--symprec", o->request.options.symprec, "distance tolerance in Angstrom")->capture_default_str();
-  cmd->add_option("--threads", o->threads, "worker threads (default: one per core)");
+  cmd->add_option("-j,--jobs,--threads", o->threads,
+                  "worker processes screening files side by side (default: one per core)");
   cmd->add_option("--max-atoms", o->request.options.max_atoms,
                   "refuse a file whose cell holds more atoms than this")
       ->capture_default_str();

@@ -9,6 +9,7 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <atomic>
 #include <cerrno>
 #include <cmath>
 #include <cstring>
@@ -376,7 +377,13 @@ SpglibAnswer spglib_answer(double lattice[3][3], double (*positions)[3], const i
 // and becomes an error of this one structure. The child also has its own copy
 // of spglib's global error code, so searches on several threads need no lock
 // and run in parallel.
+std::atomic<bool> g_isolated{true};
+
 SpglibAnswer run_isolated(const std::function<SpglibAnswer()>& search) {
+  // A process that is itself a disposable worker (screening) calls spglib
+  // directly: a fork per call from a process holding the catalogues cost two
+  // thirds of a screening's time.
+  if (!g_isolated) return search();
   int fds[2];
   SpglibAnswer failed;
   failed.crashed = true;
@@ -445,6 +452,8 @@ double snapped(double v) {
 
 
 } // namespace
+
+void set_symmetry_library_isolation(bool on) { g_isolated = on; }
 
 bool lattice_from_cell_parameters(const std::array<double, 6>& p, std::array<std::array<double, 3>, 3>* lattice) {
   // An angle within 1e-6 degrees of 0 or 180 flattens the cell: sin(gamma)

@@ -97,6 +97,11 @@ struct StructureSymmetry {
 StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double symprec);
 // Same, with the structure's own tolerance `cell.symprec` (1e-5 unless the file set it).
 StructureSymmetry find_structure_symmetry(const CrystalStructure& cell);
+// spglib runs in a child process per search (on by default), so a crash there
+// is an error of one structure. A process that is itself a disposable worker
+// (screening, scenario/worker_processes.hpp) turns it off for speed and handles
+// its own end.
+void set_symmetry_library_isolation(bool on);
 
 // Lattice rows a, b, c from a, b, c (Angstrom) and alpha, beta, gamma (degrees):
 // a along x, b in the xy plane. False when the angles do not close a cell.

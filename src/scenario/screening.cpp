@@ -4,13 +4,13 @@
 #include "group/group_catalogue.hpp"
 #include "response/response_catalogue.hpp"
 #include "scenario/scenario_run.hpp"
+#include "scenario/screen_journal.hpp"
+#include "scenario/worker_processes.hpp"
 
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
-#include <atomic>
 #include <filesystem>
-#include <exception>
 #include <fstream>
 #include <map>
 #include <mutex>
@@ -191,7 +191,7 @@ std::vector<std::string> collect_structure_files(const std::vector<std::string>&
   return out;
 }
 
-std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned threads,
+std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned workers,
                                          const std::function<void(std::size_t, std::size_t)>& progress,
                                          const std::vector<ScreenRow>& already,
                                          const std::function<void(const ScreenRow&)>& finished) {
@@ -199,7 +199,7 @@ std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned 
     fail(ErrorKind::usage, "no response to screen for", "--response",
          "one or more ids from `tensorsieve responses`, e.g. --response anomalous-hall");
   // Unknown ids are the user's mistake once, not a failure in every row; this
-  // also loads both catalogues before the threads share them.
+  // also loads both catalogues before the worker processes share their pages.
   for (const auto& id : request.responses) ResponseCatalogue::builtin().get(id);
   GroupCatalogue::builtin();
 
@@ -213,35 +213,42 @@ std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned 
     if (it != known.end()) rows[i] = *it->second;
     else todo.push_back(i);
   }
-  if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
-  threads = static_cast<unsigned>(std::min<std::size_t>(threads, std::max<std::size_t>(todo.size(), 1)));
-  std::atomic<std::size_t> next{0};
+  if (workers == 0) workers = std::max(1u, std::thread::hardware_concurrency());
   std::size_t done = total - todo.size();
-  std::mutex progress_mutex;
-  std::exception_ptr failure; // from `finished`: the first one stops the run
-  GroupCache cache;
-  auto work = [&] {
-    for (std::size_t k = next++; k < todo.size(); k = next++) {
-      const std::size_t i = todo[k];
-      rows[i] = screen_one(request.files[i], request, &cache);
-      std::lock_guard<std::mutex> lock(progress_mutex);
-      if (failure) return;
-      ++done;
-      try {
-        if (finished) finished(rows[i]);
-        if (progress) progress(done, total);
-      } catch (...) {
-        failure = std::current_exception();
-        next = todo.size();
-        return;
-      }
-    }
+  GroupCache cache; // each worker process fills its own copy
+  WorkerTasks tasks;
+  // A worker is disposable, so it calls the symmetry library directly; a file
+  // that ends its worker is screened again below, alone and with every library
+  // call in a child process of its own, which names what went wrong.
+  tasks.start = [] { set_symmetry_library_isolation(false); };
+  tasks.work = [&](std::size_t i) { return journal_line(screen_one(request.files[i], request, &cache)); };
+  tasks.lost = [&](std::size_t i, const std::string& why) {
+    std::string answer;
+    WorkerTasks alone;
+    alone.work = tasks.work;
+    alone.done = [&](std::size_t, const std::string& line) { answer = line; };
+    alone.lost = [&](std::size_t, const std::string& again) {
+      ScreenRow row;
+      row.file = request.files[i];
+      row.error = "screening this file ended its worker process (" + again +
+                  "); the other files were screened. Please report it with the file";
+      return journal_line(row);
+    };
+    (void)why; // the retry's own account replaces the first one
+    run_in_worker_processes({i}, 1, alone);
+    return answer;
   };
-  std::vector<std::thread> pool;
-  for (unsigned t = 1; t < threads; ++t) pool.emplace_back(work);
-  work();
-  for (auto& t : pool) t.join();
-  if (failure) std::rethrow_exception(failure);
+  tasks.done = [&](std::size_t i, const std::string& line) {
+    if (!parse_journal_line(line, &rows[i]) || rows[i].file != request.files[i]) {
+      rows[i] = ScreenRow{};
+      rows[i].file = request.files[i];
+      rows[i].error = "internal error: a worker process answered with an unreadable row";
+    }
+    ++done;
+    if (finished) finished(rows[i]);
+    if (progress) progress(done, total);
+  };
+  run_in_worker_processes(todo, workers, tasks);
   return rows;
 }
 

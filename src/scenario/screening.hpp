@@ -1,12 +1,12 @@
 // Screening many structure files at once: for each file, its magnetic point
 // group and, for each asked response, whether it is allowed and with how many
 // independent components, in the bulk and at each asked film cut. Files are
-// independent, so they are spread over a pool of threads; every row depends
-// only on its file, so the rows (and the bytes written from them) are the same
-// for any number of threads. What depends on the point group alone (its forms
-// for every response, in the bulk and at each cut) is worked out once per run
-// and shared by every file of that group: the symmetry search runs per file,
-// the tensor work per group.
+// independent, so they are spread over worker processes (worker_processes.hpp);
+// every row depends only on its file, so the rows (and the bytes written from
+// them) are the same for any number of workers. What depends on the point
+// group alone (its forms for every response, in the bulk and at each cut) is
+// worked out once per worker and shared by every file of that group it
+// screens: the symmetry search runs per file, the tensor work per group.
 #pragma once
 
 #include "lowering/structure_file.hpp"
@@ -47,14 +47,16 @@ struct ScreenRow {
 std::vector<std::string> collect_structure_files(const std::vector<std::string>& paths);
 
 // Checks the response ids once (an unknown id throws before any work), then
-// screens every file on `threads` threads (0: one per core). A file that fails
-// gets its error in its row; a crash of the symmetry library on a file is such
-// an error too (the search runs in a child process). `progress(done, total)`
-// is called after each file, from the thread that finished it, one call at a
-// time. Rows in `already` (a resumed run, screen_journal.hpp) are taken for
-// their files as they are; `finished(row)` is called, under the same lock as
-// `progress`, with every row computed in this call.
-std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned threads,
+// screens every file on `workers` worker processes (0: one per core). A file
+// that fails gets its error in its row. A crash on a file (in the symmetry
+// library or anywhere else) ends only its worker: the file is screened once
+// more, alone, with every library call in a child process of its own, and the
+// row holds the error that run names. `progress(done, total)`
+// is called in this process after each file, one call at a time. Rows in
+// `already` (a resumed run, screen_journal.hpp) are taken for their files as
+// they are; `finished(row)` is called, just before `progress`, with every row
+// computed in this call. An exception from either stops the run.
+std::vector<ScreenRow> screen_structures(const ScreenRequest& request, unsigned workers,
                                          const std::function<void(std::size_t, std::size_t)>& progress = {},
                                          const std::vector<ScreenRow>& already = {},
                                          const std::function<void(const ScreenRow&)>& finished = {});
