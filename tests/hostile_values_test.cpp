@@ -6,7 +6,10 @@
 
 #include <catch2/catch.hpp>
 
+#include <filesystem>
 #include <fstream>
+#include <sstream>
+#include <vector>
 
 using ts::test::run_cli;
 using ts::test::TempDir;
@@ -68,4 +71,99 @@ TEST_CASE("bounds on work name their limit, and the command line lifts them") {
   CHECK(small.exit_code == 5);
   CHECK(has(small.err, "more than 10 atoms"));
   CHECK(run_cli({"sample", "--structure-file", cr, "--max-atoms", "30", "--response", "conductivity"}).exit_code == 0);
+}
+
+namespace {
+
+// Every free-text field of every example (title, lowering and phase labels,
+// bar, SHG, Kerr, fit, photocurrent and pump-probe names, observation labels)
+// replaced by a hostile string that carries a marker naming its field and line.
+std::string with_hostile_text(const std::string& scenario, std::vector<std::string>* markers) {
+  std::istringstream in(scenario);
+  std::string out, line;
+  int n = 0;
+  while (std::getline(in, line)) {
+    for (const std::string key : {"title = \"", "name = \"", "label = \""}) {
+      if (line.rfind(key, 0) != 0) continue;
+      const std::string marker = "secret" + std::to_string(++n);
+      markers->push_back(marker);
+      line = key.substr(0, key.size() - 1) + "'Q_1 \\input{" + marker + "} $a$ 50% #2 & ~ ^ <script>x</script>'";
+    }
+    out += line + "\n";
+  }
+  return out;
+}
+
+} // namespace
+
+TEST_CASE("every writer escapes every free-text field of every example") {
+  const std::vector<std::string> examples = {"hall-signal-to-explain", "magnetised-film-harmonic-hall",
+                                             "magnetised-film-optics",  "polar-film-photocurrents",
+                                             "spin-reorientation-pump-probe", "threefold-film-scan",
+                                             "strained-film", "tilted-perovskite-film"};
+  for (const auto& name : examples) {
+    INFO(name);
+    TempDir dir;
+    std::vector<std::string> markers;
+    std::ifstream in(source("examples/" + name + ".toml"));
+    std::stringstream text;
+    text << in.rdbuf();
+    std::ofstream(dir / "s.toml") << with_hostile_text(text.str(), &markers);
+    std::filesystem::copy_file(source("examples/threefold-film-scan.csv"), dir / "threefold-film-scan.csv");
+    REQUIRE(!markers.empty());
+
+    auto latex = run_cli({"run", (dir / "s.toml").string(), "-f", "latex"});
+    REQUIRE(latex.exit_code == 0);
+    // `run` reports the scenario, `fit` its [[fit]] scans.
+    const bool fits = has(text.str(), "[[fit]]");
+    if (fits) {
+      const auto fitted = run_cli({"fit", (dir / "s.toml").string(), "-f", "latex"});
+      REQUIRE(fitted.exit_code == 0);
+      latex.out += fitted.out;
+    }
+    for (const auto& m : markers) {
+      INFO(m);
+      CHECK(has(latex.out, "\\textbackslash{}input\\{" + m + "\\}"));
+      CHECK(!has(latex.out, "\\input{" + m));
+    }
+    CHECK(!has(latex.out, "Q_1"));
+    CHECK(!has(latex.out, " $a$"));
+    CHECK(!has(latex.out, "50%"));
+    CHECK(!has(latex.out, " #2"));
+    CHECK(!has(latex.out, " & ~"));
+
+    auto html = run_cli({"run", (dir / "s.toml").string(), "-f", "html"});
+    REQUIRE(html.exit_code == 0);
+    if (fits) {
+      const auto fitted = run_cli({"fit", (dir / "s.toml").string(), "-f", "html"});
+      REQUIRE(fitted.exit_code == 0);
+      html.out += fitted.out;
+    }
+    for (const auto& m : markers) {
+      INFO(m);
+      CHECK(has(html.out, m));
+    }
+    CHECK(!has(html.out, "<script>x"));
+    CHECK(has(html.out, "&lt;script&gt;x"));
+  }
+}
+
+TEST_CASE("control and escape characters in a title never reach the terminal raw") {
+  TempDir dir;
+  std::ofstream(dir / "t.toml") << "title = \"red \\u001b[31mtitle\\u0007 bell \\u009b2J\"\nresponses = [\"conductivity\"]\n"
+                                   "[crystal]\ngroup = \"m-3m\"\n";
+  for (const std::string format : {"text", "markdown", "latex", "html"}) {
+    INFO(format);
+    const auto r = run_cli({"run", (dir / "t.toml").string(), "-f", format});
+    REQUIRE(r.exit_code == 0);
+    CHECK(has(r.out, "title"));
+    CHECK(r.out.find('\x1b') == std::string::npos);
+    CHECK(r.out.find('\x07') == std::string::npos);
+    CHECK(r.out.find("\xc2\x9b") == std::string::npos);
+  }
+  // JSON keeps the title as written, escaped by JSON's own rules.
+  const auto json = run_cli({"run", (dir / "t.toml").string(), "-f", "json"});
+  REQUIRE(json.exit_code == 0);
+  CHECK(json.out.find('\x1b') == std::string::npos);
+  CHECK((has(json.out, "\\u001b[31m") || has(json.out, "\\u001B[31m")));
 }
