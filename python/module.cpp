@@ -250,7 +250,7 @@ StructureFileOptions file_options(const std::string& occupancy, double symprec) 
 }
 
 py::list screen(const std::vector<std::string>& paths, const std::vector<std::string>& response_ids,
-                const std::vector<std::string>& cuts, unsigned threads, const std::string& occupancy, double symprec) {
+                const std::vector<std::string>& cuts, unsigned jobs, const std::string& occupancy, double symprec) {
   ScreenRequest request;
   request.responses = response_ids;
   request.cuts = cuts;
@@ -258,8 +258,9 @@ py::list screen(const std::vector<std::string>& paths, const std::vector<std::st
   request.files = collect_structure_files(paths);
   std::vector<ScreenRow> rows;
   {
-    py::gil_scoped_release free_python; // the pool runs without the interpreter
-    rows = screen_structures(request, threads);
+    // The worker processes run without the interpreter (they never touch Python).
+    py::gil_scoped_release free_python;
+    rows = screen_structures(request, jobs);
   }
   py::list out;
   const py::object loads = py::module_::import("json").attr("loads");
@@ -344,6 +345,8 @@ PYBIND11_MODULE(_tensorsieve, m) {
   m.def("structure", &structure, py::arg("path"), py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
         "read a CIF or mCIF file: point group, space group, BNS number, type and notes");
   m.def("screen", &screen, py::arg("paths"), py::arg("responses"), py::arg("cuts") = std::vector<std::string>{},
-        py::arg("threads") = 0u, py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
+        py::arg("jobs") = 0u, py::arg("occupancy") = "refuse", py::arg("symprec") = 1e-2,
         "screen structure files: one dict per file, as `tensorsieve screen -f jsonl`");
+  m.def("structure_files", &collect_structure_files, py::arg("paths"),
+        "the structure files `screen` reads from files, folders and list files, in its order");
 }

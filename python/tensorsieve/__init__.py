@@ -29,6 +29,7 @@ from ._tensorsieve import Error, __version__  # noqa: F401
 from .display import Report, wrap
 from .expressions import components, evaluate, expr, matrix, tensor
 from .tables import table
+from .distributed import screen_on_dask
 
 # Installed by pip, the package carries its own groups/ and response catalogue in data/
 # (setup.py); built by CMake, the module finds the source tree or share/tensorsieve.
@@ -145,13 +146,25 @@ def structure(path, occupancy="refuse", symprec=1e-2):
     return wrap(_tensorsieve.structure(path, occupancy=occupancy, symprec=symprec))
 
 
-def screen(paths, responses, cuts=(), threads=0, occupancy="refuse", symprec=1e-2):
+def screen(paths, responses, cuts=(), jobs=0, occupancy="refuse", symprec=1e-2, threads=None):
     """Screen structure files (paths of files, folders or lists) for responses, in the
     bulk and on each cut: one dict per file, as ``tensorsieve screen -f jsonl``.
-    Runs on a thread pool without holding the interpreter; ``table(screen(...))``
-    gives one row per file."""
-    return wrap(_tensorsieve.screen(list(paths), list(responses), cuts=list(cuts), threads=threads,
+
+    ``jobs`` worker processes (0: one per core) screen files side by side without
+    holding the interpreter; a file that crashes a library ends only its worker and
+    becomes a row with an ``error``. ``threads`` is the former name of ``jobs``.
+    ``table(screen(...))`` gives one row per file. For more than one machine see
+    :func:`screen_on_dask`."""
+    if threads is not None:
+        jobs = threads
+    return wrap(_tensorsieve.screen(list(paths), list(responses), cuts=list(cuts), jobs=jobs,
                                     occupancy=occupancy, symprec=symprec))
+
+
+def structure_files(paths):
+    """The structure files :func:`screen` reads from ``paths`` (files; folders, for their
+    .cif and .mcif files, sorted; ``@list`` files of paths), in the order of its rows."""
+    return _tensorsieve.structure_files(list(paths))
 
 
 def exact_components(report):
@@ -170,5 +183,5 @@ def exact_components(report):
 
 
 __all__ = ["Error", "Report", "__version__", "form", "group", "groups", "identify", "operations", "response",
-           "responses", "survey", "scenario", "observe", "screen", "structure", "components", "exact_components",
-           "expr", "tensor", "matrix", "evaluate", "table"]
+           "responses", "survey", "scenario", "observe", "screen", "screen_on_dask", "structure_files", "structure",
+           "components", "exact_components", "expr", "tensor", "matrix", "evaluate", "table"]
