@@ -8,7 +8,7 @@
 // current and absent for a magnetisation along the normal (Avci, Garello, Gabureac,
 // Ghosh, Fuhrer, Alvarado and Gambardella, "Interplay of spin-orbit torque and
 // thermoelectric effects in ferromagnet/normal-metal bilayers", Phys. Rev. B 90,
-// 224427 (2014), from memory). A film whose symmetry allows an off-diagonal Seebeck
+// 224427 (2014), title checked). A film whose symmetry allows an off-diagonal Seebeck
 // coefficient S_xz shows a longitudinal voltage under a vertical gradient (Lengfellner,
 // Kremb, Schnellbögl, Betz and Prettl, "Giant voltages upon surface heating in normal
 // YBa2Cu3O7-δ films suggesting an atomic layer thermopile", Appl. Phys. Lett. 60, 501

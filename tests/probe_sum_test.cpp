@@ -94,8 +94,8 @@ TEST_CASE("expansion parts: symmetric field indices, parity from the order, Onsa
 }
 
 TEST_CASE("harmonic Hall of a 4mm1' interface: cos phi_M at first order, cos 2phi_M cos phi_M at third", "[device][physics]") {
-  // Hayashi, Kim, Yamanouchi & Ohno, PRB 89, 144425 (2014); Avci et al., PRB 90, 224427 (2014) (both from
-  // memory): for an in-plane magnetisation at φ_M from the current, V_2ω,⊥ = A cos φ_M + B cos 2φ_M cos φ_M,
+  // Hayashi, Kim, Yamanouchi & Ohno, PRB 89, 144425 (2014); Avci et al., PRB 90, 224427 (2014) (both title
+  // checked): for an in-plane magnetisation at φ_M from the current, V_2ω,⊥ = A cos φ_M + B cos 2φ_M cos φ_M,
   // and cos 2φ_M cos φ_M = (cos φ_M + cos 3φ_M)/2 first appears at third order in m.
   ScenarioResult r = run_scenario(film("m-3m", "(001)", {"harmonic-hall-torques"}, "[100]", "in-plane"));
   REQUIRE(r.bars.size() == 1);
@@ -128,7 +128,7 @@ TEST_CASE("harmonic Hall of a 4mm1' interface: cos phi_M at first order, cos 2ph
 TEST_CASE("unidirectional magnetoresistance and the anomalous Nernst background share parities and angles", "[device][physics]") {
   // Avci et al., "Unidirectional spin Hall magnetoresistance in ferromagnet/normal metal bilayers", Nat. Phys.
   // 11, 570 (2015) (from memory): ΔR ∝ (z × M)·j, odd in M and in j; the anomalous Nernst voltage of the
-  // Joule gradient has the same symmetry (Avci et al., PRB 90, 224427 (2014), from memory).
+  // Joule gradient has the same symmetry (Avci et al., PRB 90, 224427 (2014), title checked).
   ScenarioResult r = run_scenario(film("m-3m", "(001)", {"unidirectional-magnetoresistance"}, "[100]", "in-plane"));
   const ProbeSum& s = r.bars[0].sum;
   const ProbeReading* l = reading(s, Probe::longitudinal, 2);
@@ -149,7 +149,7 @@ TEST_CASE("unidirectional magnetoresistance and the anomalous Nernst background 
 }
 
 TEST_CASE("Berry-curvature dipole and skew scattering are indistinguishable by symmetry", "[device][physics]") {
-  // Du et al., Nat. Commun. 10, 3047 (2019) (from memory): both give the same 2ω Hall form; they are
+  // Du et al., Nat. Commun. 10, 3047 (2019) (title checked): both give the same 2ω Hall form; they are
   // told apart by their scaling with σ_xx. A (001) interface with a polar distortion along [100] keeps
   // one mirror and allows D·û (docs/hall-bars.md).
   Scenario sc = film("m-3m", "(001)", {"berry-curvature-dipole", "second-order-conductivity"}, "rotating", "none");

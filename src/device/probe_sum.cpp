@@ -151,17 +151,17 @@ std::string non_symmetry_handle(const SumMechanism& a, const SumMechanism& b) {
   if (a.thermal || b.thermal)
     return "drive frequency and the thermal path: a thermal voltage rolls off above the inverse thermal time of film "
            "and substrate and scales with the substrate's heat conductance (Avci et al., PRB 90, 224427 (2014), "
-           "from memory)";
+           "title checked)";
   if (is_nonlinear_conductivity(a) && is_nonlinear_conductivity(b) && !a.c_type && !b.c_type)
     return "scaling with the longitudinal conductivity σ_xx (or with temperature): a Berry-curvature dipole and "
            "skew or side-jump scattering enter with different powers of the relaxation time (Du et al., Nat. "
-           "Commun. 10, 3047 (2019); Kang et al., Nat. Mater. 18, 324 (2019), both from memory)";
+           "Commun. 10, 3047 (2019); Kang et al., Nat. Mater. 18, 324 (2019), both title checked)";
   if (is_nonlinear_conductivity(a) && is_nonlinear_conductivity(b) && a.c_type && b.c_type)
     return "scaling with σ_xx: the intrinsic term goes as τ⁰ and the nonlinear Drude term as τ² (Watanabe & "
            "Yanase, Phys. Rev. Research 2, 043081 (2020), title checked)";
   if (a.magnetisation_order > 0 && b.magnetisation_order > 0)
     return "the strength of the applied field: in the macrospin model a torque term goes as 1/(H - H_k) or 1/H "
-           "while a magnetoresistive term saturates with m (Hayashi et al., PRB 89, 144425 (2014), from memory)";
+           "while a magnetoresistive term saturates with m (Hayashi et al., PRB 89, 144425 (2014), title checked)";
   return "scaling with σ_xx, temperature, film thickness or field strength (common practice)";
 }
 
