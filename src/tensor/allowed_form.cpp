@@ -528,10 +528,19 @@ AllowedForm solve_in_frame(const TensorSpec& spec, const PointGroup& group, cons
   auto sym = index_symmetry_of(spec);
   if (frame.is_identity())
     return build_form(spec, sym, invariant_rows(spec, *sym, group), {Rational(1), Rational(1), Rational(1)});
-  std::vector<Row> rows = rotate_rows(*sym, invariant_rows(spec, *sym, group), frame);
+  std::vector<Row> rows = invariant_rows(spec, *sym, group);
   std::array<Rational, 3> len2;
   for (int i = 0; i < 3; ++i) len2[i] = dot(frame.axes[i], frame.axes[i]).rational_part();
-  return build_form(spec, sym, std::move(rows), len2);
+  // A group that constrains nothing (1, 11') leaves every component free in
+  // any frame: rotating the whole space and reducing it again gives the unit
+  // rows back, at a cost that grows as the cube of the component count (a
+  // rank-6 tensor on a cut with measured lattice parameters took minutes).
+  if (rref_blocks(rows, sym->size()).size() == static_cast<std::size_t>(sym->size())) {
+    std::vector<Row> unit(sym->size(), Row(sym->size()));
+    for (int i = 0; i < sym->size(); ++i) unit[i][i] = QSqrt3(1);
+    return build_form(spec, sym, std::move(unit), len2);
+  }
+  return build_form(spec, sym, rotate_rows(*sym, rows, frame), len2);
 }
 
 } // namespace
