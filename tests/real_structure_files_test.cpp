@@ -196,3 +196,24 @@ TEST_CASE("a search that finds nothing is tried at smaller tolerances and says w
   REQUIRE(r.exit_code == 0);
   CHECK(has(r.out, "spglib found no symmetry at symprec 0.01 Angstrom; the group is the one found at symprec 0.001"));
 }
+
+// A file on which spglib itself crashes (tests/data/reading/near-equal-moments.mcif, an
+// invented NiO-like antiferromagnet whose moments differ by multiples of 0.0004 muB) at
+// symprec 0.05: a located error of this file, exit 5; in `screen`, with two worker
+// processes, one error row and every other row written.
+TEST_CASE("a crash inside the symmetry library is an error of one file, never of the run") {
+  const std::string file = reading("near-equal-moments.mcif");
+  const auto fine = run_cli({"sample", "--structure-file", file, "--response", "conductivity"});
+  CHECK(fine.exit_code == 0);
+  const auto crash = run_cli({"sample", "--structure-file", file, "--symprec", "0.05", "--response", "conductivity"});
+  CHECK(crash.exit_code == 5);
+  CHECK(has(crash.err, "near-equal-moments.mcif"));
+  CHECK(has(crash.err, "crashed"));
+  CHECK(has(crash.err, "a smaller symprec"));
+  const auto screen = run_cli({"screen", file, data("cr2o3-afm.mcif"), data("fe-bcc-ferromagnet.mcif"), "--symprec",
+                               "0.05", "--response", "anomalous-hall", "-j", "2", "-f", "csv"});
+  CHECK(screen.exit_code == 5);
+  CHECK(has(screen.out, "cr2o3-afm.mcif,-3'm'"));
+  CHECK(has(screen.out, "fe-bcc-ferromagnet.mcif,4/mm'm'"));
+  CHECK(has(screen.out, "crashed"));
+}

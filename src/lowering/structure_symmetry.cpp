@@ -566,7 +566,7 @@ StructureSymmetry find_structure_symmetry(const CrystalStructure& cell, double s
     fail(ErrorKind::bad_file,
          "the symmetry library (spglib) crashed on this " + std::string(cell.magnetic ? "magnetic " : "") +
              "structure at symprec " + number_text(symprec) + " Angstrom (" + answer.problem +
-             "); the run goes on without it",
+             "); the search ran in a process of its own, so nothing else was lost",
          where, "a smaller symprec (atoms or moments closer than symprec confuse the search), or a cleaner cell");
   if (!answer.ok)
     fail(ErrorKind::bad_file,
