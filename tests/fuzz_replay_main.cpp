@@ -21,6 +21,7 @@ extern "C" int fuzz_one_miller(const std::uint8_t*, std::size_t);
 extern "C" int fuzz_one_scenario_toml(const std::uint8_t*, std::size_t);
 extern "C" int fuzz_one_structure_toml(const std::uint8_t*, std::size_t);
 extern "C" int fuzz_one_structure_cif(const std::uint8_t*, std::size_t);
+extern "C" int fuzz_one_scan_table(const std::uint8_t*, std::size_t);
 
 int main(int argc, char** argv) {
   if (argc != 2) {
@@ -34,7 +35,7 @@ int main(int argc, char** argv) {
   const Target targets[] = {{"group_symbol", fuzz_one_group_symbol},   {"tensor_spec", fuzz_one_tensor_spec},
                             {"operation", fuzz_one_operation},         {"miller", fuzz_one_miller},
                             {"scenario_toml", fuzz_one_scenario_toml}, {"structure_toml", fuzz_one_structure_toml},
-                            {"structure_cif", fuzz_one_structure_cif}};
+                            {"structure_cif", fuzz_one_structure_cif}, {"scan_table", fuzz_one_scan_table}};
   namespace fs = std::filesystem;
   int status = 0;
   for (const Target& t : targets) {

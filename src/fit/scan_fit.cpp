@@ -318,14 +318,17 @@ void fit_transport(const ScenarioResult& res, const FitSpec& spec, const ScanTab
     h.functions = names;
     h.tensor_parameters = pm.parameters;
     const std::size_t T = fs.size();
-    if (T > p.n && hyp.from_chain)
+    // A model with as many functions as points passes through every point:
+    // no residual is left to judge it by (its AIC would run to minus infinity).
+    if (T >= p.n && hyp.from_chain)
       fail(ErrorKind::bad_file,
-           "the scan has " + std::to_string(p.n) + " points, fewer than the " + std::to_string(T) +
-               " functions of the model of " + hyp.symbol + " (" + hyp.origin + ")",
-           data.path, "at least " + std::to_string(T) + " points, and more to test it: every extra point is a degree of freedom");
-    if (T > p.n) {
+           "the scan has " + std::to_string(p.n) + (p.n == 1 ? " point" : " points") + ", no more than the " +
+               std::to_string(T) + (T == 1 ? " function" : " functions") + " of the model of " + hyp.symbol + " (" + hyp.origin + ")",
+           data.path, "at least " + std::to_string(T + 1) + " points, and more to test it: every extra point is a degree of freedom");
+    if (T >= p.n) {
       h.fitted = false;
-      h.not_fitted = "the model has " + std::to_string(T) + " functions and the scan " + std::to_string(p.n) + " points";
+      h.not_fitted = "the model has " + std::to_string(T) + " functions and the scan " + std::to_string(p.n) +
+                     " points: a fit needs more points than functions";
       out.hypotheses.push_back(std::move(h));
       continue;
     }
