@@ -22,6 +22,7 @@
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
+#include <string>
 #include <random>
 #include <sstream>
 #include <thread>
@@ -135,7 +136,7 @@ int main() {
     }
   });
   set_symmetry_library_isolation(true);
-  std::printf("  symmetry search only (read + spglib), in one process: %8.1f structures/s\n", count / search);
+  std::printf("  %-48s %8.1f structures/s\n", "symmetry search only (read + spglib), 1 process:", count / search);
   int failed = 0;
   double one_thread = 0;
   for (unsigned threads : {1u, 2u}) {
@@ -143,8 +144,9 @@ int main() {
     const double t = bench::seconds_of([&] { rows = screen_structures(request, threads); });
     failed = 0;
     for (const auto& r : rows) failed += r.error.empty() ? 0 : 1;
-    std::printf("  mixed folder (15 tilt systems), %u worker process%s:   %8.1f structures/s", threads,
-                threads == 1 ? "       " : "es", count / t);
+    const std::string label = "mixed folder (15 tilt systems), " + std::to_string(threads) +
+                              (threads == 1 ? " worker process:" : " worker processes:");
+    std::printf("  %-48s %8.1f structures/s", label.c_str(), count / t);
     if (threads == 1) std::printf("  (the search is %.0f%% of it)", 100 * search / t);
     if (threads == 1) one_thread = t;
     else std::printf("  (%.2fx the rate of 1 worker)", one_thread / t);
@@ -167,8 +169,9 @@ int main() {
   double one_worker = 0;
   for (unsigned threads : {1u, 2u}) {
     const double t = bench::seconds_of([&] { screen_structures(repeated, threads); });
-    std::printf("  one repeated group, %u worker process%s:               %8.1f structures/s", threads,
-                threads == 1 ? "       " : "es", count / t);
+    const std::string label = "one repeated group, " + std::to_string(threads) +
+                              (threads == 1 ? " worker process:" : " worker processes:");
+    std::printf("  %-48s %8.1f structures/s", label.c_str(), count / t);
     if (threads == 1) one_worker = t;
     else std::printf("  (%.2fx the rate of 1 worker)", one_worker / t);
     std::printf("\n");
