@@ -6,6 +6,8 @@
 
 #include <catch2/catch.hpp>
 
+#include <sys/resource.h>
+
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -166,4 +168,39 @@ TEST_CASE("control and escape characters in a title never reach the terminal raw
   REQUIRE(json.exit_code == 0);
   CHECK(json.out.find('\x1b') == std::string::npos);
   CHECK((has(json.out, "\\u001b[31m") || has(json.out, "\\u001B[31m")));
+}
+
+// The amplification case: every response, domains on, the most lowering steps a
+// scenario may run. The step bound keeps the report a few megabytes and the memory of
+// the run a small multiple of it; one step more is refused before any work.
+TEST_CASE("a scenario asking for everything at the step bound stays bounded in output and memory") {
+  const auto ids = run_cli({"responses", "-f", "json"});
+  REQUIRE(ids.exit_code == 0);
+  std::string list;
+  for (std::size_t p = ids.out.find("\"id\" : \""); p != std::string::npos; p = ids.out.find("\"id\" : \"", p + 1)) {
+    const std::size_t start = p + 8;
+    list += (list.empty() ? "\"" : ", \"") + ids.out.substr(start, ids.out.find('"', start) - start) + "\"";
+  }
+  REQUIRE(list.size() > 100);
+  auto scenario = [&](int triples) {
+    std::string s = "responses = [" + list + "]\n[crystal]\ngroup = \"m-3m\"\n[report]\ndomains = true\n";
+    for (int i = 0; i < triples; ++i)
+      s += "[[lowering]]\nkind = \"strain\"\nalong = \"[001]\"\n[[lowering]]\nkind = \"strain\"\nalong = \"[111]\"\n"
+           "[[lowering]]\nkind = \"moment\"\nalong = \"[110]\"\n";
+    return s;
+  };
+  TempDir dir;
+  std::ofstream(dir / "all.toml") << scenario(21); // 63 steps
+  const auto r = run_cli({"run", (dir / "all.toml").string(), "-f", "json", "-o", (dir / "all.json").string()});
+  REQUIRE(r.exit_code == 0);
+  const auto size = std::filesystem::file_size(dir / "all.json");
+  CHECK(size > 1000000);
+  CHECK(size < 20000000);
+  struct rusage usage {};
+  getrusage(RUSAGE_CHILDREN, &usage);
+  CHECK(usage.ru_maxrss < 500 * 1024); // kilobytes: every run of this test so far under 500 MB
+  std::ofstream(dir / "more.toml") << scenario(22); // 66 steps
+  const auto refused = run_cli({"run", (dir / "more.toml").string(), "-f", "json"});
+  CHECK(refused.exit_code == 5);
+  CHECK(has(refused.err, "--max-steps N"));
 }
