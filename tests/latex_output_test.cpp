@@ -40,6 +40,10 @@ std::vector<std::vector<std::string>> latex_commands() {
   cmds.push_back({"responses"});
   cmds.push_back({"sample", "m-3m", "--cut", "(110)", "--lower", "moment:[001]", "--response", "anomalous-hall",
                   "--domains"});
+  // Every response at once: catalogue descriptions with ^ and k-hat, coefficients such
+  // as -3 inside displayed math, long relation lists and wide matrices.
+  cmds.push_back({"sample", "m-3m", "--cut", "(111)", "--response", "all"});
+  cmds.push_back({"groups"});
   return cmds;
 }
 
@@ -80,7 +84,15 @@ TEST_CASE("LaTeX output: ASCII only, and pdflatex compiles it", "[latex][formats
   INFO(ts::test::read_file(dir / "log.txt").substr(0, 6000));
   CHECK(rc == 0);
   CHECK(fs::exists(dir / "all.pdf"));
-  CHECK(ts::test::read_file(dir / "all.log").find("\n! ") == std::string::npos); // no TeX error anywhere
+  const std::string all_log = ts::test::read_file(dir / "all.log");
+  CHECK(all_log.find("\n! ") == std::string::npos); // no TeX error anywhere
+  // Every report, not only the examples: tables and displays fit the page.
+  std::size_t all_overfull = 0;
+  for (std::size_t p = all_log.find("Overfull \\"); p != std::string::npos; p = all_log.find("Overfull \\", p + 1)) {
+    if (all_overfull < 5) UNSCOPED_INFO(all_log.substr(p, 400));
+    ++all_overfull;
+  }
+  CHECK(all_overfull == 0);
   // The reports of the examples as a paper would include them: tables fit the page and
   // no line runs into the margin, not one overfull box.
   REQUIRE(std::system(("cd " + ts::test::shell_quote(dir.path().string()) +

@@ -65,6 +65,24 @@ std::vector<std::pair<std::vector<std::string>, std::string>> grouped_components
   return out;
 }
 
+// Characters a LaTeX math entry takes on the page, roughly: command names,
+// braces and scripts' marks take none, a \\frac about half its parts.
+std::size_t printed_width(const std::string& c) {
+  std::size_t n = 0;
+  for (std::size_t k = 0; k < c.size(); ++k) {
+    if (c[k] == '\\') {
+      while (k + 1 < c.size() && std::isalpha(static_cast<unsigned char>(c[k + 1]))) ++k;
+      continue;
+    }
+    if (c[k] == '{' || c[k] == '}' || c[k] == '^' || c[k] == '_') continue;
+    ++n;
+  }
+  return n;
+}
+// About 50 printed characters of display math fill the text block of a 10 pt
+// article; an entry of up to 9 (T_{xxyz}, -T_{xxyy}) stays in the matrix.
+constexpr std::size_t kMatrixLine = 50, kShortEntry = 9;
+
 struct ViewGrid {
   std::string title;
   std::vector<std::string> header;
@@ -267,7 +285,7 @@ std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameC
   os << ".\n";
   if (!groups.empty()) {
     // A display cannot break across pages: long lists of relations come in blocks.
-    constexpr std::size_t kRowsPerBlock = 30;
+    constexpr std::size_t kRowsPerBlock = 20; // rows with fractions stand taller than a line
     for (std::size_t first = 0; first < groups.size(); first += kRowsPerBlock) {
       const std::size_t last = std::min(groups.size(), first + kRowsPerBlock);
       os << "\\begin{align*}\n";
@@ -277,12 +295,40 @@ std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameC
     }
   }
   for (const auto& v : views) {
+    // A matrix is one unbreakable line per row: when its widest row would run past
+    // the text block, its long entries are named a_1, a_2, ... (as handbooks do) and
+    // spelled out below it.
+    std::vector<std::vector<std::string>> cells;
+    for (const auto& row : v.rows) cells.emplace_back(row.begin() + (row.empty() ? 0 : 1), row.end());
+    std::size_t widest = 0;
+    for (const auto& row : cells) {
+      std::size_t w = 0;
+      for (const auto& c : row) w += printed_width(c) + 3;
+      widest = std::max(widest, w);
+    }
+    std::vector<std::string> named;
+    if (widest > kMatrixLine) {
+      for (auto& row : cells)
+        for (auto& c : row) {
+          if (printed_width(c) <= kShortEntry) continue;
+          auto it = std::find(named.begin(), named.end(), c);
+          const std::size_t k = it == named.end() ? named.size() : static_cast<std::size_t>(it - named.begin());
+          if (it == named.end()) named.push_back(c);
+          c = "a_{" + std::to_string(k + 1) + "}";
+        }
+    }
     os << "% " << v.title << "\n\\[\n\\begin{pmatrix}\n";
-    for (std::size_t r = 0; r < v.rows.size(); ++r) {
-      for (std::size_t c = 1; c < v.rows[r].size(); ++c) os << (c > 1 ? " & " : "  ") << v.rows[r][c];
-      os << (r + 1 < v.rows.size() ? " \\\\\n" : "\n");
+    for (std::size_t r = 0; r < cells.size(); ++r) {
+      for (std::size_t c = 0; c < cells[r].size(); ++c) os << (c > 0 ? " & " : "  ") << cells[r][c];
+      os << (r + 1 < cells.size() ? " \\\\\n" : "\n");
     }
     os << "\\end{pmatrix}\n\\]\n";
+    if (!named.empty()) {
+      os << "where\n\\begin{align*}\n";
+      for (std::size_t k = 0; k < named.size(); ++k)
+        os << "  a_{" << k + 1 << "} &= " << named[k] << (k + 1 < named.size() ? " \\\\\n" : "\n");
+      os << "\\end{align*}\n";
+    }
   }
   return finish(os.str(), format);
 }

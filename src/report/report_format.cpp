@@ -4,6 +4,7 @@
 #include "core/text.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <cctype>
 #include <cstdio>
 #include <sstream>
@@ -111,6 +112,8 @@ std::string latex_escape(const std::string& s) {
   return out;
 }
 
+std::string as_text(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
+
 std::string inline_code(const std::string& s, Format f) {
   if (f == Format::markdown) return "`" + s + "`";
   if (f == Format::latex) return "\\texttt{" + latex_escape(s) + "}";
@@ -136,6 +139,16 @@ std::string latex_text_mode(const std::string& text) {
   for (std::size_t i = 0; i < text.size(); ++i) {
     const char c = text[i];
     const bool escaped = i > 0 && text[i - 1] == '\\';
+    // Displayed math (align*, \[ \]) is the writers' own LaTeX: copied as it is,
+    // so that "-3 c_{xzz}" there stays a coefficient and never becomes a barred 3.
+    if (!math && !escaped && (text.compare(i, 14, "\\begin{align*}") == 0 || text.compare(i, 2, "\\[") == 0)) {
+      const bool align = text[i + 1] == 'b';
+      const std::size_t e = text.find(align ? "\\end{align*}" : "\\]", i);
+      const std::size_t stop = e == std::string::npos ? text.size() : e + (align ? 12 : 2);
+      out += text.substr(i, stop - i);
+      i = stop - 1;
+      continue;
+    }
     if (c == '$' && !escaped) math = !math;
     // A long formula in a table cell or a line may break after each item of a list
     // and after a closing parenthesis; \left( \right) would hold it in one piece.
@@ -231,7 +244,7 @@ std::string finish(std::string text, Format f) {
       {"⊃", "\\ensuremath{\\supset}"},     {"≠", "\\ensuremath{\\neq}"},      {"≈", "\\ensuremath{\\approx}"},
       {"½", "\\ensuremath{\\tfrac{1}{2}}"}, {"⁻¹", "\\ensuremath{^{-1}}"},    {"⁻", "\\ensuremath{^{-}}"},
       {"¹", "\\ensuremath{^{1}}"},           {"°", "\\ensuremath{^{\\circ}}"}, {"□", "sq"},
-      {"§", "\\S{}"},                        {"ẑ", "\\ensuremath{\\hat{z}}"}, {"\u0302", "\\^{}"},
+      {"§", "\\S{}"},                        {"ẑ", "\\ensuremath{\\hat{z}}"}, {"k\u0302", "\\ensuremath{\\hat{k}}"}, {"\u0302", "\\^{}"},
       {"ê", "\\^{e}"},                       {"á", "\\'{a}"},                   {"é", "\\'{e}"},
       {"ý", "\\'{y}"},                       {"ü", "\\\"{u}"},                  {"ö", "\\\"{o}"},
       {"û", "\\^{u}"},                       {"Š", "\\v{S}"},                    {"Ž", "\\v{Z}"}};
@@ -270,6 +283,10 @@ std::string latex_cell(const std::string& s) {
     const bool escaped = i > 0 && s[i - 1] == '\\';
     if (c == '$' && !escaped) math = !math;
     if (!math && !escaped && (c == '_' || c == '%' || c == '#' || c == '&')) out += '\\';
+    if (!math && !escaped && (c == '^' || c == '~')) { // chi^m: bare, a math-mode error
+      out += c == '^' ? "\\textasciicircum{}" : "\\textasciitilde{}";
+      continue;
+    }
     out += c;
   }
   return out;
@@ -309,15 +326,23 @@ std::string grid(const std::vector<std::string>& header, const std::vector<std::
       }
       return n;
     };
+    // The longest piece a line cannot break: TeX breaks at spaces and after the
+    // hyphens of ids such as unidirectional-magnetoresistance.
+    auto longest_piece = [&](const std::string& c) {
+      std::size_t most = 0;
+      for (const auto& word : split(c, ' '))
+        for (const auto& piece : split(word, '-')) most = std::max(most, printed(piece) + 1);
+      return most;
+    };
     std::vector<std::size_t> longest(header.size(), 0), longest_word(header.size(), 0);
     for (std::size_t i = 0; i < header.size(); ++i) {
       longest[i] = printed(header[i]);
-      for (const auto& word : split(header[i], ' ')) longest_word[i] = std::max(longest_word[i], printed(word));
+      longest_word[i] = std::max(longest_word[i], longest_piece(header[i]));
     }
     for (const auto& r : rows)
       for (std::size_t i = 0; i < r.size() && i < longest.size(); ++i) {
         longest[i] = std::max(longest[i], printed(r[i]));
-        for (const auto& word : split(r[i], ' ')) longest_word[i] = std::max(longest_word[i], printed(word));
+        longest_word[i] = std::max(longest_word[i], longest_piece(r[i]));
       }
     constexpr double kLine = 64, kShort = 12, kSeparation = 0.035;
     double used = 0, wide = 0;
@@ -335,14 +360,22 @@ std::string grid(const std::vector<std::string>& header, const std::vector<std::
         least += static_cast<double>(longest_word[i]) / kLine + 0.02;
       }
     const double extra = std::max(0.0, budget - least);
+    // Columns whose unbreakable pieces alone overfill the line (catalogue ids,
+    // formulas) well past what is left of it cannot be a tabular on the page (the
+    // estimate is cautious: \small with narrow gaps holds more): each row becomes an
+    // item of a list.
+    if (!fits && least + (0.92 - budget) > 1.25) return row_list(header, rows);
     std::string columns;
     std::vector<bool> paragraph(header.size(), false);
+    std::vector<double> widths(header.size(), 0.0);
     for (std::size_t i = 0; i < header.size(); ++i) {
       if (fits || longest[i] <= kShort) {
         columns += 'l';
         continue;
       }
-      const double share = static_cast<double>(longest_word[i]) / kLine + 0.02 + extra * static_cast<double>(longest[i]) / wide;
+      const double share = static_cast<double>(longest_word[i]) / kLine + 0.02 +
+                           extra * static_cast<double>(longest[i]) / wide;
+      widths[i] = share;
       char buf[48];
       std::snprintf(buf, sizeof buf, "p{%.2f\\linewidth}", share);
       columns += buf;
@@ -353,9 +386,24 @@ std::string grid(const std::vector<std::string>& header, const std::vector<std::
       return paragraph[i] ? "\\raggedright " + c : c;
     };
     // A tabular cannot break across pages: a long table is set as several, each with
-    // its header, of at most kRows rows.
-    constexpr std::size_t kRows = 36;
-    for (std::size_t first = 0; first < rows.size() || first == 0; first += kRows) {
+    // its header, of at most kLines printed lines (a row of paragraph cells takes as
+    // many lines as its fullest cell needs at its column's width).
+    constexpr double kLines = 34;
+    auto lines_of = [&](const std::vector<std::string>& r) {
+      double most = 1;
+      for (std::size_t i = 0; i < r.size() && i < widths.size(); ++i)
+        if (paragraph[i] && widths[i] > 0)
+          most = std::max(most, std::ceil(static_cast<double>(printed(r[i])) / (widths[i] * kLine)));
+      return most;
+    };
+    for (std::size_t first = 0, next = 0; first < rows.size() || first == 0; first = next) {
+      double lines = lines_of(header);
+      next = first;
+      do {
+        lines += next < rows.size() ? lines_of(rows[next]) : 0;
+        ++next;
+      } while (next < rows.size() && lines + lines_of(rows[next]) <= kLines);
+      const std::size_t kRows = next - first;
       // A table with paragraph columns is set a size smaller with narrower gaps, so its
       // unbreakable cells (formulas, long words) stay inside the text block.
       const bool tight = std::find(paragraph.begin(), paragraph.end(), true) != paragraph.end();

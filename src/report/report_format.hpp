@@ -36,6 +36,10 @@ std::string inline_code(const std::string& s, Format f);
 
 // Escape &, %, _, #, $ ... for LaTeX text mode.
 std::string latex_escape(const std::string& s);
+// Text from a user or the catalogue (a step label, a part's description, a file
+// name) as a line of this format: LaTeX gets it with its special characters
+// escaped, so "x_1 at 50%" or "\\input{...}" prints as written and runs nothing.
+std::string as_text(const std::string& s, Format f);
 
 // The report as the writer produced it, or, for LaTeX, with the Unicode symbols
 // the reports use (∥ ⊥ × → · ω μ ...) replaced by \ensuremath{...} commands, so

@@ -17,11 +17,6 @@ namespace ts {
 
 namespace {
 
-// Text the user wrote (step labels, file names in notes) is text in every
-// format: LaTeX gets it with its special characters escaped, so a label such
-// as "x_1 at 50%" or "\\input{...}" prints as written and runs nothing.
-std::string user_text(const std::string& s, Format f) { return f == Format::latex ? latex_escape(s) : s; }
-
 
 std::string code(const std::string& s, Format f) { return inline_code(s, f); }
 
@@ -285,7 +280,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   os << section_heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
   if (f == Format::text) os << "source: " << sc.source << "\n";
   if (!r.parent_note.empty())
-    os << (f == Format::latex ? "\\noindent " : "") << "parent: " << user_text(r.parent_note, f) << "\n";
+    os << (f == Format::latex ? "\\noindent " : "") << "parent: " << as_text(r.parent_note, f) << "\n";
   os << (f == Format::latex ? "\n\\noindent " : "") << "sample frame: " << frame_text << " (right-handed, y = z × x)\n\n";
 
   os << section_heading("symmetry chain", f);
@@ -293,7 +288,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   for (std::size_t i = 0; i < r.chain.size(); ++i) {
     const auto& st = r.chain[i];
     std::string setting = st.sample_symbol.empty() ? standard_axes(st, lattice) : "as written, in the sample frame";
-    rows.push_back({std::to_string(i), user_text(st.label, f), code(group_name(st), f), st.id.type->schoenflies,
+    rows.push_back({std::to_string(i), as_text(st.label, f), code(group_name(st), f), st.id.type->schoenflies,
                     std::to_string(st.group.order()), setting});
   }
   os << grid({"step", "imposed", "group", "Schoenflies", "order", "setting"}, rows, f);
@@ -321,8 +316,10 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     os << section_heading("summary: what the last step (" + r.chain[last].label + ") switched on", f);
     std::vector<std::string> on, allowed, forbidden;
     for (const auto& p : r.parts) {
-      const std::string name = (p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label) +
-                               (field_induced_hall(p) ? ", induced by the applied field, not spontaneous" : "");
+      const std::string name =
+          as_text((p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label) +
+                      (field_induced_hall(p) ? ", induced by the applied field, not spontaneous" : ""),
+                  f);
       const int before = p.counts[last - 1], after = p.counts[last];
       if (before == 0 && after > 0) on.push_back(name + " (" + std::to_string(after) + " independent)");
       else (after > 0 ? allowed : forbidden).push_back(name);
@@ -365,7 +362,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       for (const auto& s : ch.switched_on) on += (on.empty() ? "" : ", ") + code(s, f);
       std::vector<std::string> br;
       for (const auto& b : ch.broken) br.push_back(code(relation_text(b, f == Format::latex ? Format::text : f), f));
-      os << (f == Format::markdown ? "- " : "  ") << "step " << ch.step << " (" << user_text(r.chain[ch.step].label, f) << "): "
+      os << (f == Format::markdown ? "- " : "  ") << "step " << ch.step << " (" << as_text(r.chain[ch.step].label, f) << "): "
          << ch.before << " → " << ch.after << " independent";
       if (!on.empty()) os << "; switched on: " << on;
       if (!br.empty()) os << "; relations broken: " << join(br, ", ");
