@@ -128,6 +128,11 @@ TEST_CASE("every writer escapes every free-text field of every example") {
       CHECK(has(latex.out, "\\textbackslash{}input\\{" + m + "\\}"));
       CHECK(!has(latex.out, "\\input{" + m));
     }
+    // The short report too: step labels in its tables.
+    const auto brief = run_cli({"run", (dir / "s.toml").string(), "-f", "latex", "--brief"});
+    REQUIRE(brief.exit_code == 0);
+    CHECK(!has(brief.out, "\\input{secret"));
+    CHECK(!has(brief.out, "Q_1"));
     CHECK(!has(latex.out, "Q_1"));
     CHECK(!has(latex.out, " $a$"));
     CHECK(!has(latex.out, "50%"));
@@ -203,4 +208,17 @@ TEST_CASE("a scenario asking for everything at the step bound stays bounded in o
   const auto refused = run_cli({"run", (dir / "more.toml").string(), "-f", "json"});
   CHECK(refused.exit_code == 5);
   CHECK(has(refused.err, "--max-steps N"));
+}
+
+// A '|' in a step label stays in its cell: "\|" in Markdown tables, one cell in HTML.
+TEST_CASE("a bar in a label does not split a table cell") {
+  TempDir dir;
+  std::ofstream(dir / "p.toml") << "responses = [\"conductivity\"]\n[crystal]\ngroup = \"m-3m\"\n[[lowering]]\n"
+                                   "kind = \"strain\"\nalong = \"[001]\"\nlabel = \"strain a|b\"\n";
+  const auto md = run_cli({"run", (dir / "p.toml").string(), "-f", "markdown"});
+  REQUIRE(md.exit_code == 0);
+  CHECK(has(md.out, "| 1    | strain a\\|b (strain ∥ [001]) |"));
+  const auto html = run_cli({"run", (dir / "p.toml").string(), "-f", "html"});
+  REQUIRE(html.exit_code == 0);
+  CHECK(has(html.out, "<td>strain a|b (strain ∥ [001])</td><td><code>4/"));
 }

@@ -40,7 +40,7 @@ std::string write_scenario_brief(const ScenarioResult& r, Format f, const Observ
   os << section_heading("symmetry chain", f);
   std::vector<std::vector<std::string>> rows;
   for (std::size_t i = 0; i < r.chain.size(); ++i)
-    rows.push_back({std::to_string(i), r.chain[i].label, inline_code(r.chain[i].readable_symbol, f),
+    rows.push_back({std::to_string(i), as_text(r.chain[i].label, f), inline_code(r.chain[i].readable_symbol, f),
                     std::to_string(r.chain[i].group.order())});
   os << grid({"step", "imposed", "group", "order"}, rows, f) << "\n";
 
@@ -51,8 +51,8 @@ std::string write_scenario_brief(const ScenarioResult& r, Format f, const Observ
     std::vector<std::string> counts;
     for (int n : p.counts) counts.push_back(std::to_string(n));
     verdicts.push_back({p.response_id.empty() ? "tensor" : p.response_id,
-                        p.response_id.empty() ? inline_code(p.spec.canonical_text(), f) : p.part_label,
-                        join(counts, " → "), part_verdict(r, k)});
+                        p.response_id.empty() ? inline_code(p.spec.canonical_text(), f) : as_text(p.part_label, f),
+                        join(counts, " → "), as_text(part_verdict(r, k), f)});
   }
   os << grid({"response", "part", "independent by step", "verdict"}, verdicts, f) << "\n";
 

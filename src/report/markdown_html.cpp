@@ -43,11 +43,25 @@ std::vector<std::string> cells(const std::string& row) {
   std::string inner = row;
   if (!inner.empty() && inner.front() == '|') inner.erase(0, 1);
   if (!inner.empty() && inner.back() == '|') inner.pop_back();
+  // A cell's own '|' is written "\|" (as GitHub's tables want): not a border.
   std::vector<std::string> out;
-  for (auto c : split(inner, '|')) {
+  std::string c;
+  auto close = [&] {
     const std::size_t a = c.find_first_not_of(' '), b = c.find_last_not_of(' ');
     out.push_back(a == std::string::npos ? "" : c.substr(a, b - a + 1));
+    c.clear();
+  };
+  for (std::size_t i = 0; i < inner.size(); ++i) {
+    if (inner[i] == '\\' && i + 1 < inner.size() && inner[i + 1] == '|') {
+      c += '|';
+      ++i;
+    } else if (inner[i] == '|') {
+      close();
+    } else {
+      c += inner[i];
+    }
   }
+  close();
   return out;
 }
 

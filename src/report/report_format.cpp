@@ -421,6 +421,28 @@ std::string grid(const std::vector<std::string>& header, const std::vector<std::
     }
     return os.str();
   }
+  if (f == Format::markdown) {
+    // A '|' in a cell (a step label, a file name) would end the cell: "\|" keeps it.
+    auto bare = [](const std::string& c) {
+      for (std::size_t p = c.find('|'); p != std::string::npos; p = c.find('|', p + 1))
+        if (p == 0 || c[p - 1] != '\\') return true;
+      return false;
+    };
+    auto guarded = [](std::vector<std::string> r) {
+      for (auto& c : r)
+        for (std::size_t p = c.find('|'); p != std::string::npos; p = c.find('|', p + 2))
+          if (p == 0 || c[p - 1] != '\\') c.insert(p, 1, '\\');
+          else --p; // already guarded: look on after it
+      return r;
+    };
+    std::vector<std::vector<std::string>> safe;
+    bool any = std::any_of(header.begin(), header.end(), bare);
+    for (const auto& r : rows) any = any || std::any_of(r.begin(), r.end(), bare);
+    if (any) {
+      for (const auto& r : rows) safe.push_back(guarded(r));
+      return grid(guarded(header), safe, f);
+    }
+  }
   std::vector<std::size_t> w(header.size(), 0);
   for (std::size_t i = 0; i < header.size(); ++i) w[i] = width(header[i]);
   for (const auto& r : rows)
