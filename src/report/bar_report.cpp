@@ -250,10 +250,7 @@ void write_unread(std::ostream& os, const ScenarioResult& r, const BarResult& b,
 
 } // namespace
 
-bool field_induced_hall(const PartForms& p) {
-  return p.induced_by_field && p.catalogue_part && p.catalogue_part->hall && p.catalogue_part->harmonic == 1 &&
-         p.spec.time_odd;
-}
+bool field_induced_hall(const PartForms& p) { return p.field_induced_hall; }
 
 std::string part_title(const PartForms& p) {
   if (p.response_id.empty()) return "tensor " + p.spec.canonical_text();

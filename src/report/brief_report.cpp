@@ -10,15 +10,10 @@ namespace ts {
 
 std::string part_verdict(const ScenarioResult& r, std::size_t k) {
   const PartForms& p = r.parts[k];
-  const std::size_t last = r.chain.size() - 1;
-  std::string verdict = p.planar[last] == PlanarReading::not_a_bar_part ? (p.counts[last] > 0 ? "allowed" : "forbidden")
-                                                                        : planar_reading_text(p.planar[last]);
+  std::string verdict = p.verdicts.back();
   // The step that switched the part on is what a lowering chain is asked about.
-  for (std::size_t i = last; i >= 1; --i)
-    if (p.counts[i] > 0 && p.counts[i - 1] == 0) {
-      verdict += ", switched on by step " + std::to_string(i) + " (" + r.chain[i].label + ")";
-      break;
-    }
+  if (p.switched_on_at)
+    verdict += ", switched on by step " + std::to_string(*p.switched_on_at) + " (" + r.chain[*p.switched_on_at].label + ")";
   return verdict;
 }
 

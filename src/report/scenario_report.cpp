@@ -219,9 +219,13 @@ toml::table scenario_json(const ScenarioResult& r) {
     toml::array planar, skipped;
     for (auto v : p.planar) planar.push_back(planar_reading_text(v));
     for (bool v : p.field_step_skipped) skipped.push_back(v);
+    toml::array verdicts;
+    for (const auto& v : p.verdicts) verdicts.push_back(v);
     toml::table entry{{"planar_bar_by_step", planar},
+                      {"verdict_by_step", verdicts},
                       {"field_step_not_applied", skipped},
                       {"induced_by_applied_field", p.induced_by_field},
+                      {"field_induced_hall", p.field_induced_hall},
                       {"response", p.response_id},
                       {"response_name", p.response_name},
                       {"part", p.part_label},
@@ -229,6 +233,7 @@ toml::table scenario_json(const ScenarioResult& r) {
                       {"independent_by_step", counts},
                       {"final", final_form},
                       {"changes", changes}};
+    if (p.switched_on_at) entry.insert("switched_on_by_step", static_cast<std::int64_t>(*p.switched_on_at));
     for (const auto& d : r.domains) {
       if (d.part != k) continue;
       toml::array vars;
@@ -340,8 +345,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     std::vector<std::vector<std::string>> counts;
     for (std::size_t i = 0; i < r.chain.size(); ++i) {
       int n = p.counts[i];
-      std::string verdict = p.planar[i] == PlanarReading::not_a_bar_part ? (n > 0 ? "allowed" : "forbidden")
-                                                                         : planar_reading_text(p.planar[i]);
+      const std::string& verdict = p.verdicts[i];
       std::string group = p.field_step_skipped[i] ? "as step " + std::to_string(i - 1) + " (field not applied)"
                                                   : code(group_name(r.chain[i]), f);
       counts.push_back({std::to_string(i), group, std::to_string(n), verdict});

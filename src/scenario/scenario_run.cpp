@@ -610,6 +610,16 @@ ScenarioResult run_scenario(const Scenario& given) {
       const PointGroup& g = without_b->first.back();
       p.induced_by_field = independent_count(p.spec, g) - (p.excluded ? independent_count(*p.excluded, g) : 0) == 0;
     }
+    p.field_induced_hall = p.induced_by_field && p.catalogue_part && p.catalogue_part->hall &&
+                           p.catalogue_part->harmonic == 1 && p.spec.time_odd;
+    for (std::size_t i = 0; i < p.counts.size(); ++i)
+      p.verdicts.push_back(p.planar[i] == PlanarReading::not_a_bar_part ? (p.counts[i] > 0 ? "allowed" : "forbidden")
+                                                                        : planar_reading_text(p.planar[i]));
+    for (std::size_t i = p.counts.size(); i-- > 1;)
+      if (p.counts[i] > 0 && p.counts[i - 1] == 0) {
+        p.switched_on_at = i;
+        break;
+      }
     // The time-odd quantities this part's last form was derived with.
     p.sources.magnetisation = magnetic_parent;
     for (std::size_t i = 0; i < sc.steps.size(); ++i) {

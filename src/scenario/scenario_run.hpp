@@ -59,6 +59,14 @@ struct PartForms {
   // (moment, magnetic order and a magnetic parent kept): the applied field induces
   // it, no magnetic order of the scenario makes it spontaneous.
   bool induced_by_field = false;
+  // induced_by_field for a first-harmonic, time-odd Hall part: the ordinary or
+  // in-plane Hall effect of the applied field, not a spontaneous one.
+  bool field_induced_hall = false;
+  // Per step, what every format prints: "allowed" or "forbidden", or for a bar
+  // part how a general planar bar reads it (planar_reading_text).
+  std::vector<std::string> verdicts;
+  // The last step that switched the part on (zero components before, some after).
+  std::optional<std::size_t> switched_on_at;
 };
 
 // The signals of one bar: one entry per bar part of the requested responses.
