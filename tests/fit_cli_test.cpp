@@ -1,10 +1,12 @@
 // `tensorsieve fit`: the example scan end to end, the formats, and bad input
 // (located messages, non-zero exits, nothing on standard output).
+#include "report/html_math.hpp"
 #include "support/cli_run.hpp"
 
 #include <catch2/catch.hpp>
 
 #include <fstream>
+#include <sstream>
 
 using ts::test::run_cli;
 
@@ -20,6 +22,30 @@ void write(const std::filesystem::path& p, const std::string& text) {
 const std::string kScenario =
     ts::test::read_file(std::string(TENSORSIEVE_SOURCE_DIR) + "/tests/data/fit-threefold-film.toml") +
     "[[fit]]\ndata = \"scan.csv\"\nharmonic = 2\n";
+
+// The HTML page shows every line of the Markdown report from the first fit on:
+// headings and paragraphs by their text, table rows cell by cell.
+void check_page_shows_markdown(const std::string& md, const std::string& html) {
+  const std::size_t first = md.find("### fit: ");
+  REQUIRE(first != std::string::npos);
+  std::istringstream in(md.substr(first));
+  std::string line;
+  while (std::getline(in, line)) {
+    if (line.empty() || line.find_first_not_of("|- :") == std::string::npos) continue; // table rules
+    INFO(line);
+    if (line[0] != '|') {
+      CHECK(html.find(ts::html_escape(line.substr(line.find_first_not_of("# ")))) != std::string::npos);
+      continue;
+    }
+    std::istringstream row(line.substr(1));
+    std::string cell;
+    while (std::getline(row, cell, '|')) {
+      const std::size_t a = cell.find_first_not_of(' '), b = cell.find_last_not_of(' ');
+      if (a == std::string::npos) continue;
+      CHECK(html.find(">" + ts::html_escape(cell.substr(a, b - a + 1)) + "</t") != std::string::npos);
+    }
+  }
+}
 
 } // namespace
 
@@ -40,7 +66,7 @@ TEST_CASE("fit: the invented example scan requires lowering the threefold film",
   auto h = run_cli({"fit", kExample, "--format", "html"});
   CHECK(h.exit_code == 0);
   CHECK(h.out.rfind("<!DOCTYPE html>", 0) == 0);
-  CHECK(h.out.find("<h3>Verdict</h3>") != std::string::npos);
+  CHECK(h.out.find("<h3>verdict</h3>") != std::string::npos);
   CHECK(h.out.find("<svg") != std::string::npos);
   auto j = run_cli({"fit", kExample, "--format", "json"});
   CHECK(j.out.rfind("{", 0) == 0);
@@ -94,4 +120,53 @@ TEST_CASE("fit: --figures writes the data with the best fits and the residuals",
   }
   const std::string svg = ts::test::read_file(dir / "figs" / "fit-1-data.svg");
   CHECK(svg.find("<svg") != std::string::npos);
+}
+
+TEST_CASE("fit: the HTML page shows every section of the Markdown report", "[fit][cli][html]") {
+  // The example: the models shown, with their coefficients, what each measures, the
+  // functions, the degenerate combinations, the verdict's origin and the F-tests' "vs".
+  auto md = run_cli({"fit", kExample, "--format", "markdown"});
+  auto html = run_cli({"fit", kExample, "--format", "html"});
+  INFO(md.err << html.err);
+  REQUIRE(md.exit_code == 0);
+  REQUIRE(html.exit_code == 0);
+  for (const char* part : {"#### model of m1' (mirror ⊥ [1-10])", "| coefficient |", "| ± (1σ)  | measures",
+                           "functions: cos(phi); cos(3*phi)", "degenerate: ", " vs m' (mirror' ⊥ [01-1])",
+                           "(subgroup of 3m1'"}) {
+    INFO(part);
+    CHECK(md.out.find(part) != std::string::npos);
+  }
+  check_page_shows_markdown(md.out, html.out);
+  CHECK(html.out.find("id=\"stamp\">tensorsieve ") != std::string::npos);
+
+  // Four angles cannot separate cos φ from cos 3φ: the models with both are not
+  // fitted, and every format says why.
+  ts::test::TempDir dir;
+  write(dir / "film.toml", kScenario);
+  write(dir / "scan.csv", "phi_deg, Y_uV, sigma_uV\n0, 1.0, 0.1\n90, 0.02, 0.1\n180, -0.97, 0.1\n270, 0.01, 0.1\n");
+  md = run_cli({"fit", (dir / "film.toml").string(), "--format", "markdown"});
+  html = run_cli({"fit", (dir / "film.toml").string(), "--format", "html"});
+  auto text = run_cli({"fit", (dir / "film.toml").string()});
+  INFO(md.err << html.err);
+  REQUIRE(md.exit_code == 0);
+  REQUIRE(html.exit_code == 0);
+  const std::string reason = "not fitted: the scan's angles cannot separate cos(phi), cos(3*phi)";
+  CHECK(md.out.find(reason) != std::string::npos);
+  CHECK(text.out.find(reason) != std::string::npos);
+  CHECK(html.out.find(ts::html_escape(reason)) != std::string::npos);
+  check_page_shows_markdown(md.out, html.out);
+}
+
+TEST_CASE("fit: the figures draw the models the reports show, the accepted hypothesis first", "[fit][cli][figures]") {
+  ts::test::TempDir dir;
+  auto r = run_cli({"fit", kExample, "--figures", (dir / "figs").string()});
+  REQUIRE(r.exit_code == 0);
+  const std::string caption = ts::test::read_file(dir / "figs" / "fit-1-data.caption.txt");
+  INFO(caption);
+  // The accepted hypothesis, named first, then the others the text shows a model of.
+  const std::size_t accepted = caption.find("m1' (mirror ⊥ [1-10])");
+  CHECK(accepted != std::string::npos);
+  CHECK(caption.find("m1' (mirror ⊥ [01-1])") > accepted);
+  CHECK(caption.find("m' (mirror' ⊥ [01-1])") != std::string::npos);
+  CHECK(caption.find("3m1' (3") == std::string::npos); // ranked fourth, not accepted: not drawn
 }

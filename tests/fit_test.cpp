@@ -2,6 +2,7 @@
 // Synthetic scans are generated here from the exact model of a known group with
 // Gaussian noise and fixed seeds (invented data, for the checks only); the
 // physics checks name their outside source beside them.
+#include "figure/fit_figure.hpp"
 #include "fit/fit_statistics.hpp"
 #include "fit/scan_fit.hpp"
 #include "support/cli_run.hpp"
@@ -269,5 +270,43 @@ TEST_CASE("fewer points than the scenario's own model: refused with the file nam
     CHECK(e.kind() == ErrorKind::bad_file);
     CHECK(e.location() == "synthetic");
     CHECK(e.problem().find("the scan has 1 point, no more than the") != std::string::npos);
+  }
+}
+
+TEST_CASE("the models shown: the accepted hypothesis first, then the best ranked; the figures draw the same",
+          "[fit][figures]") {
+  // cos 3φ with three small terms that lower symmetries allow (each worth about 3.5 in χ²,
+  // not significant at 0.01 even together) and a residual of harmonic 9 that no model
+  // has (χ² = 36): the threefold group is accepted, yet ranks last by AIC.
+  const ScenarioResult res = scenario(kThreefold);
+  const double sigma = 0.1, a = sigma * std::sqrt(7.0 / 36.0);
+  std::vector<double> phi = angles(36), v, s;
+  for (double d : phi) {
+    const double p = d * kPi / 180;
+    v.push_back(std::cos(3 * p) + a * (std::cos(p) + std::sin(p) + std::sin(3 * p)) +
+                sigma * std::sqrt(2.0) * std::cos(9 * p));
+    s.push_back(sigma);
+  }
+  const FitResult r =
+      fit_scan(res, transverse(2), scan_table_from_arrays({{"phi_deg", phi}, {"Y", v}, {"sigma", s}}, {}, "synthetic"));
+  const HypothesisFit* top = accepted(r);
+  REQUIRE(top);
+  CHECK(top->hypothesis.symbol.rfind("3m1'", 0) == 0);
+  const std::size_t rank = static_cast<std::size_t>(top - r.hypotheses.data());
+  CHECK(rank >= 3); // not among the three best ranked
+  REQUIRE(r.shown_models.size() == 4);
+  CHECK(r.shown_models.front() == rank);
+  CHECK(r.shown_models[1] == 0);
+  CHECK(r.shown_models[2] == 1);
+  CHECK(r.shown_models[3] == 2);
+  // The figures draw exactly these models, in this order.
+  const auto figures = fit_figures(r, "t");
+  REQUIRE(figures.size() == 2);
+  for (const auto& fig : figures) {
+    std::vector<std::string> labels;
+    for (const auto& c : fig.panels.at(0))
+      if (c.label != "data") labels.push_back(c.label);
+    REQUIRE(labels.size() == r.shown_models.size());
+    for (std::size_t i = 0; i < labels.size(); ++i) CHECK(labels[i] == r.hypotheses[r.shown_models[i]].hypothesis.symbol);
   }
 }

@@ -57,7 +57,7 @@ void setup_fit(CLI::App& app) {
       sc.fits = {spec};
     }
     const FitRun run = run_fits(sc);
-    const std::string report = html ? write_fits_html(run) : write_fits(run, f);
+    const std::string report = html ? write_fits_html(run, {report_date(), command_line()}) : write_fits(run, f);
     if (!o->figures.empty()) {
       std::vector<FigureData> figures;
       for (std::size_t i = 0; i < run.fits.size(); ++i)

@@ -11,10 +11,10 @@ double wrapped(double deg) {
   return d < 0 ? d + 360.0 : d;
 }
 
-std::vector<const HypothesisFit*> best(const FitResult& r, std::size_t top) {
+// The models the reports show (FitResult::shown_models): the accepted one first.
+std::vector<const HypothesisFit*> shown_models(const FitResult& r) {
   std::vector<const HypothesisFit*> out;
-  for (const auto& h : r.hypotheses)
-    if (h.fitted && out.size() < top) out.push_back(&h);
+  for (std::size_t i : r.shown_models) out.push_back(&r.hypotheses.at(i));
   return out;
 }
 
@@ -37,18 +37,25 @@ Curve model_curve(const FitResult& r, const HypothesisFit& h, std::size_t channe
 
 } // namespace
 
-std::vector<FigureData> fit_figures(const FitResult& r, const std::string& stem, std::size_t top) {
+std::vector<FigureData> fit_figures(const FitResult& r, const std::string& stem) {
   std::vector<FigureData> out;
   if (r.angle_deg.empty()) return out;
-  const auto shown = best(r, top);
-  const std::string note = "fit of " + r.data + " (" + std::to_string(r.points) + " points); lines: best hypotheses by AIC";
+  const auto shown = shown_models(r);
+  const std::string note = "fit of " + r.data + " (" + std::to_string(r.points) +
+                           " points); lines: the accepted and the best hypotheses by AIC";
+  // The caption names the selection: the accepted hypothesis and the best ranked.
+  std::string models;
+  for (std::size_t i = 0; i < shown.size(); ++i)
+    models += (i == 0 ? "" : i + 1 == shown.size() ? " and " : ", ") + shown[i]->hypothesis.symbol;
+  if (!r.verdict.accepted.empty()) models += " (the accepted hypothesis first, then the best ranked by AIC)";
+  else models += " (the best ranked by AIC)";
   FigureData f;
   f.stem = stem + "-data";
   f.title = r.name + ": data and the best fits";
   f.x_label = r.abscissa;
   f.note = note;
-  f.caption = "Measured points of " + r.data + " (" + r.measurement + ") and the fitted models of the " +
-              std::to_string(shown.size()) + " best-ranked hypotheses (lowest AIC), " + r.abscissa + " from sample x.";
+  f.caption = "Measured points of " + r.data + " (" + r.measurement + ") and the fitted models of " + models +
+              ", " + r.abscissa + " from sample x.";
   std::vector<std::size_t> all;
   for (std::size_t k = 0; k < r.points; ++k) all.push_back(k);
   if (r.kind == "SHG") {
@@ -90,7 +97,7 @@ std::vector<FigureData> fit_figures(const FitResult& r, const std::string& stem,
   res.x_label = r.abscissa;
   res.y_label = r.uncertainties ? "(data − model)/σ" : "data − model";
   res.note = note;
-  res.caption = "Residuals of the " + std::to_string(shown.size()) + " best-ranked hypotheses at each measured point" +
+  res.caption = "Residuals of " + models + " at each measured point" +
                 (r.uncertainties ? ", in units of the point's uncertainty." : ".");
   std::vector<Curve> panel;
   for (const auto* h : shown) {

@@ -170,6 +170,18 @@ void rank_and_judge(FitResult& r, const PointGroup& parent) {
   }
   for (const auto& h : r.hypotheses)
     if (!h.fitted) v.undecided.push_back(h.hypothesis.symbol + " not fitted: " + h.not_fitted);
+
+  // The models shown (reports, figures, JSON): the accepted one first, then the
+  // fitted ones among the best ranked.
+  constexpr std::size_t best_ranked = 3;
+  r.shown_models.clear();
+  if (accepted) r.shown_models.push_back(static_cast<std::size_t>(accepted - r.hypotheses.data()));
+  std::size_t ranked = 0;
+  for (std::size_t i = 0; i < r.hypotheses.size() && ranked < best_ranked; ++i) {
+    if (!r.hypotheses[i].fitted) continue;
+    ++ranked;
+    if (&r.hypotheses[i] != accepted) r.shown_models.push_back(i);
+  }
 }
 
 } // namespace ts

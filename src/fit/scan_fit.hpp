@@ -85,6 +85,10 @@ struct FitResult {
   double alpha = 0.01;
   std::vector<HypothesisFit> hypotheses; // ranked: best (lowest AIC) first; unfitted last
   FitVerdict verdict;
+  // The models every writer and figure shows, as indices into `hypotheses`: the
+  // accepted hypothesis first, then the other fitted ones among the three best
+  // ranked, in rank order. Chosen once, where the ranking is made (rank_and_judge).
+  std::vector<std::size_t> shown_models;
   // The data for figures: the scan angle (degrees), the reading, its uncertainty
   // (empty without), the channel of each point (SHG) and the channels in order.
   std::string abscissa;

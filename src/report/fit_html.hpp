@@ -1,14 +1,16 @@
 // The scan fits as one self-contained HTML page (`tensorsieve fit --format
-// html`): per fit the ranking, the verdict, the best models and the figures
-// inline as SVG. Writers only write: everything comes from the FitRun.
+// html`): per fit the Markdown report (ranking, verdict, the models shown with
+// their coefficients) through markdown_to_html, and the figures inline as SVG.
+// Writers only write: everything comes from the FitRun.
 #pragma once
 
 #include "fit/scan_fit.hpp"
+#include "report/html_report.hpp"
 
 #include <string>
 
 namespace ts {
 
-std::string write_fits_html(const FitRun& run);
+std::string write_fits_html(const FitRun& run, const HtmlStamp& stamp = {});
 
 } // namespace ts

@@ -108,6 +108,8 @@ toml::table fit_json(const FitResult& r) {
     }
     hyps.push_back(std::move(t));
   }
+  toml::array shown; // by rank, as the hypotheses are numbered
+  for (std::size_t i : r.shown_models) shown.push_back(static_cast<std::int64_t>(i + 1));
   toml::table verdict{{"accepted", r.verdict.accepted},
                       {"accepted_origin", r.verdict.accepted_origin},
                       {"breaking", strings(r.verdict.breaking)},
@@ -122,6 +124,7 @@ toml::table fit_json(const FitResult& r) {
                      {"alpha", r.alpha},
                      {"offset_fitted", r.offset},
                      {"hypotheses", std::move(hyps)},
+                     {"shown_models", std::move(shown)},
                      {"verdict", std::move(verdict)}};
 }
 
@@ -162,12 +165,9 @@ std::string write_fit_section(const FitResult& r, Format f) {
               f);
   for (const auto& s : r.verdict.breaking) out += line("symmetry breaking: " + s, f);
   for (const auto& s : r.verdict.undecided) out += line("cannot be decided: " + s, f);
-  // The fitted models of the accepted hypothesis and of the three best ranked.
-  int shown = 0;
-  for (const auto& h : r.hypotheses) {
-    const bool accepted = h.hypothesis.symbol == r.verdict.accepted;
-    if (!h.fitted || (shown >= 3 && !accepted)) continue;
-    ++shown;
+  // The models the fit chose to show (FitResult::shown_models), as the figures and JSON do.
+  for (std::size_t i : r.shown_models) {
+    const HypothesisFit& h = r.hypotheses.at(i);
     out += subsection("model of " + h.hypothesis.symbol, f);
     if (!h.same_model.empty()) out += line("same model on this scan: " + join(h.same_model, ", "), f);
     out += line("functions: " + (h.functions.empty() ? std::string("none (the hypothesis forbids the signal)")

@@ -67,6 +67,10 @@ void figures_section(const ScenarioResult& r, std::ostream& os) {
 } // namespace
 
 const char* html_style_sheet() { return style_sheet; }
+std::string html_stamp(const HtmlStamp& stamp) {
+  return std::string("tensorsieve ") + TENSORSIEVE_VERSION + (stamp.date.empty() ? "" : ", " + esc(stamp.date)) +
+         (stamp.command.empty() ? "" : "; command: <code>" + esc(stamp.command) + "</code>");
+}
 std::string html_inline_svg(std::string svg, const std::string& prefix) { return inline_svg(std::move(svg), prefix); }
 
 std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations, const HtmlStamp& stamp) {
@@ -75,9 +79,7 @@ std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* o
   std::ostringstream os;
   os << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>" << esc(title)
      << "</title>\n<style>" << style_sheet << "</style>\n</head>\n<body>\n<h1>" << esc(title) << "</h1>\n"
-     << "<p class=\"dim\" id=\"stamp\">tensorsieve " << TENSORSIEVE_VERSION << (stamp.date.empty() ? "" : ", " + esc(stamp.date))
-     << (stamp.command.empty() ? "" : "; command: <code>" + esc(stamp.command) + "</code>")
-     << "<br>source: " << esc(file_name(sc.source)) << "</p>\n";
+     << "<p class=\"dim\" id=\"stamp\">" << html_stamp(stamp) << "<br>source: " << esc(file_name(sc.source)) << "</p>\n";
   // The page shows what the Markdown writers print, section by section: the short
   // report (chain and verdicts) first, then the whole report. One writer each, so
   // the page has every section the text has (domains, lock-in readings, the Hall

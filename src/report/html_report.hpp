@@ -24,9 +24,11 @@ struct HtmlStamp {
 std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations = nullptr,
                                 const HtmlStamp& stamp = {});
 
-// The style sheet of the pages, and an SVG made safe to inline in a page (its ids
-// prefixed), shared with the page of scan fits (fit_html.hpp).
+// The style sheet of the pages, the stamp line (version, date, command; HTML), and
+// an SVG made safe to inline in a page (its ids prefixed), shared with the page of
+// scan fits (fit_html.hpp).
 const char* html_style_sheet();
+std::string html_stamp(const HtmlStamp& stamp);
 std::string html_inline_svg(std::string svg, const std::string& prefix);
 
 } // namespace ts
