@@ -250,11 +250,10 @@ void write_unread(std::ostream& os, const ScenarioResult& r, const BarResult& b,
 
 } // namespace
 
-bool field_induced_hall(const PartForms& p) { return p.field_induced_hall; }
 
 std::string part_title(const PartForms& p) {
   if (p.response_id.empty()) return "tensor " + p.spec.canonical_text();
-  if (field_induced_hall(p))
+  if (p.field_induced_hall)
     return "Hall effect induced by the applied field (ordinary or in-plane Hall, not spontaneous: no magnetic order of "
            "the scenario allows it) [" + p.response_id + "]: " + p.part_label;
   return p.response_name + " [" + p.response_id + "]: " + p.part_label;

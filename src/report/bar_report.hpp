@@ -19,7 +19,6 @@ namespace ts {
 // "tensor SPEC" for an extra tensor, and for a linear Hall part that only the
 // applied field allows, a title that says so (not the spontaneous effect).
 std::string part_title(const PartForms& p);
-bool field_induced_hall(const PartForms& p);
 
 std::string write_bars(const ScenarioResult& r, Format f);
 std::string write_layouts(const ScenarioResult& r, Format f);

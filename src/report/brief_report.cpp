@@ -24,7 +24,7 @@ std::string write_scenario_brief(const ScenarioResult& r, Format f, const Observ
   const auto& sc = r.scenario;
   const char* bullet = f == Format::markdown ? "- " : "  ";
   const char* end = f == Format::latex ? "\\\\\n" : "\n";
-  auto prose = [&](const std::string& s) { return f == Format::latex ? latex_escape(s) : s; };
+  auto prose = [&](const std::string& s) { return as_text(s, f); };
   std::ostringstream os;
   os << section_heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
   if (f == Format::text) os << "source: " << sc.source << "\n";

@@ -323,7 +323,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
     for (const auto& p : r.parts) {
       const std::string name =
           as_text((p.response_id.empty() ? "tensor " + p.spec.canonical_text() : p.response_id + ": " + p.part_label) +
-                      (field_induced_hall(p) ? ", induced by the applied field, not spontaneous" : ""),
+                      (p.field_induced_hall ? ", induced by the applied field, not spontaneous" : ""),
                   f);
       const int before = p.counts[last - 1], after = p.counts[last];
       if (before == 0 && after > 0) on.push_back(name + " (" + std::to_string(after) + " independent)");
