@@ -203,7 +203,9 @@ TEST_CASE("a scenario asking for everything at the step bound stays bounded in o
   CHECK(size < 20000000);
   struct rusage usage {};
   getrusage(RUSAGE_CHILDREN, &usage);
+#if !defined(__SANITIZE_ADDRESS__) // AddressSanitizer's shadow memory and quarantine raise the peak (850 MB seen)
   CHECK(usage.ru_maxrss < 500 * 1024); // kilobytes: every run of this test so far under 500 MB
+#endif
   std::ofstream(dir / "more.toml") << scenario(22); // 66 steps
   const auto refused = run_cli({"run", (dir / "more.toml").string(), "-f", "json"});
   CHECK(refused.exit_code == 5);

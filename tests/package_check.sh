@@ -4,6 +4,7 @@
 # and with pkg-config, and run both copies. The source tree's src/ is never on the
 # include path: only <tensorsieve/...> from the prefix.
 # Usage: package_check.sh BUILD_DIR SCRATCH_DIR SOURCE_DIR VERSION
+# CONSUMER_CXXFLAGS: the flags the library was compiled with (sanitizers), for the consumers.
 set -euo pipefail
 build="$1"
 scratch="$2"
@@ -26,7 +27,7 @@ error: unknown point group '4mn'"
 
 # 1. CMake: find_package(tensorsieve)
 cmake -S "$source/tests/consumer" -B "$scratch/cmake-build" -DCMAKE_PREFIX_PATH="$prefix" \
-      -DCMAKE_BUILD_TYPE=Release ${CMAKE_CXX_COMPILER_LAUNCHER:+-DCMAKE_CXX_COMPILER_LAUNCHER=$CMAKE_CXX_COMPILER_LAUNCHER} >/dev/null
+      -DCMAKE_BUILD_TYPE=Release -DCMAKE_CXX_FLAGS="${CONSUMER_CXXFLAGS:-}" ${CMAKE_CXX_COMPILER_LAUNCHER:+-DCMAKE_CXX_COMPILER_LAUNCHER=$CMAKE_CXX_COMPILER_LAUNCHER} >/dev/null
 cmake --build "$scratch/cmake-build" >/dev/null
 got="$("$scratch/cmake-build/consumer")"
 [ "$got" = "$want" ] || { echo "find_package consumer printed: $got" >&2; exit 1; }
@@ -35,7 +36,7 @@ got="$("$scratch/cmake-build/consumer")"
 export PKG_CONFIG_PATH="$(dirname "$(ls "$prefix"/lib*/pkgconfig/tensorsieve.pc)")"
 [ "$(pkg-config --modversion tensorsieve)" = "$4" ]
 # shellcheck disable=SC2046
-${CXX:-c++} -O1 -o "$scratch/pc-consumer" "$source/tests/consumer/main.cpp" $(pkg-config --cflags --libs tensorsieve)
+${CXX:-c++} ${CONSUMER_CXXFLAGS:-} -O1 -o "$scratch/pc-consumer" "$source/tests/consumer/main.cpp" $(pkg-config --cflags --libs tensorsieve)
 got="$("$scratch/pc-consumer")"
 [ "$got" = "$want" ] || { echo "pkg-config consumer printed: $got" >&2; exit 1; }
 rm -rf "$scratch"

@@ -11,6 +11,7 @@
 #include <filesystem>
 #include <iostream>
 #include <limits.h>
+#include <pthread.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -189,10 +190,17 @@ void OutputBatch::commit() {
     // the file system allows.
     fs::path dir = fs::path(target).parent_path();
     std::string tmpl = ((dir.empty() ? fs::path(".") : dir) / ".tsXXXXXX").string();
+    // The cleanup signals wait while the file is created and remembered: a signal
+    // between the two would leave a temporary file the handler does not know.
+    sigset_t cleanup_signals, before;
+    sigemptyset(&cleanup_signals);
+    for (int sig : {SIGINT, SIGTERM, SIGHUP, SIGQUIT}) sigaddset(&cleanup_signals, sig);
+    ::pthread_sigmask(SIG_BLOCK, &cleanup_signals, &before);
     int fd = ::mkstemp(tmpl.data());
+    if (fd >= 0) remember(tmpl);
+    ::pthread_sigmask(SIG_SETMASK, &before, nullptr);
     if (fd < 0) cannot_write(e.path, std::strerror(errno));
     staged_.push_back(tmpl);
-    remember(tmpl);
     auto give_up = [&](const std::string& why) {
       ::close(fd);
       cannot_write(e.path, why);
