@@ -298,10 +298,10 @@ int run(const Args& args) {
   {
     const ScenarioResult example = run_scenario(load_scenario(std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml"));
     set_text_width(80);
-    Timing wrapped = time_repeated(R, [&] { (void)wrap_text(write_scenario(example, Format::text), 80); });
+    Timing wrapped = time_repeated(R, [&] { (void)wrap_text(write_scenario(example, std::nullopt, Format::text), 80); });
     set_text_width(0);
     print_figure("default example: text report wrapped to 80 columns, median", duration_text(wrapped.median));
-    Timing page = time_repeated(R, [&] { (void)write_scenario_html(example); });
+    Timing page = time_repeated(R, [&] { (void)write_scenario_html(example, *report_figures(example, true)); });
     print_figure("default example: HTML page with its figures, median", duration_text(page.median));
   }
 

@@ -163,8 +163,13 @@ Scenario scenario_of(const py::object& source) {
 py::object scenario(const py::object& source) {
   const Scenario sc = scenario_of(source);
   // As `run`: a scenario with observations is answered after its report.
-  if (!sc.observations.empty()) return parse_json(write_scenario_with_observations(run_observations(sc), Format::json));
-  return parse_json(write_scenario(run_scenario(sc), Format::json));
+  // Figures as in `run -f json`: their samples when the scenario has a [figures] table.
+  if (!sc.observations.empty()) {
+    const ObservationRun run = run_observations(sc);
+    return parse_json(write_scenario_with_observations(run, report_figures(run.scenario, false), Format::json));
+  }
+  const ScenarioResult r = run_scenario(sc);
+  return parse_json(write_scenario(r, report_figures(r, false), Format::json));
 }
 
 // As `observe --scenario FILE`: the observations alone, against the group the scenario ends in.

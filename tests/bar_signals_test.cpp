@@ -31,6 +31,17 @@ std::set<std::string> functions(const std::vector<FourierTerm>& terms) {
   return s;
 }
 
+// A (111) film of m-3m with a strain along [11-2] (in the mirror plane (1-10)): one
+// mirror left, its normal along x, and a rotating bar reading second-order conductivity.
+Scenario one_mirror_film() {
+  Scenario sc = film("m-3m", "(111)", {"second-order-conductivity"}, "rotating", "none");
+  LoweringStep st;
+  st.kind = LoweringKind::strain;
+  st.along = "[11-2]";
+  sc.steps.push_back(st);
+  return sc;
+}
+
 } // namespace
 
 TEST_CASE("planar Hall effect of an isotropic conductor follows sin 2(phi_B - phi)", "[bar][physics]") {
@@ -82,12 +93,7 @@ TEST_CASE("3m interface at zero field: sin 3phi and cos 3phi, no Berry-curvature
 TEST_CASE("one mirror adds a first harmonic and a Berry-dipole Hall term cos phi", "[bar][physics]") {
   // Sodemann & Fu, PRL 115, 216806 (2015): the largest symmetry that allows the dipole is one mirror line, with D
   // perpendicular to it. A strain along [11-2] (in the mirror plane (1-10)) leaves m with the mirror normal x.
-  Scenario sc = film("m-3m", "(111)", {"second-order-conductivity"}, "rotating", "none");
-  LoweringStep st;
-  st.kind = LoweringKind::strain;
-  st.along = "[11-2]";
-  sc.steps.push_back(st);
-  ScenarioResult r = run_scenario(sc);
+  ScenarioResult r = run_scenario(one_mirror_film());
   const PartSignal& chi = signal_of(r, 0);
   CHECK(functions(chi.longitudinal.terms) == std::set<std::string>{"sin(phi)", "sin(3*phi)"});
   const PartSignal& dipole = signal_of(r, 1);
@@ -222,6 +228,36 @@ TEST_CASE("a rosette that cannot separate two parameters is reported", "[bar][la
   CHECK(all.rank_all == 2);
   CHECK(one.rank_all == 1);
   CHECK(std::find(one.unreadable.begin(), one.unreadable.end(), "chi_xxy") != one.unreadable.end());
+}
+
+TEST_CASE("the Fourier terms that tell the parts apart are in the result and the JSON", "[bar][separation]") {
+  // The film of the one-mirror test: the longitudinal probe reads one part only, so it
+  // separates nothing; on the transverse probe cos 3φ comes from the symmetric part alone
+  // and tells it apart from the Berry dipole (Sodemann & Fu, PRL 115, 216806 (2015)).
+  ScenarioResult r = run_scenario(one_mirror_film());
+  REQUIRE(r.bars.size() == 1);
+  const BarResult& b = r.bars[0];
+  REQUIRE(b.separations.size() == 1);
+  const BarSeparation& sep = b.separations[0];
+  CHECK(sep.current_order == 2);
+  CHECK(sep.probe == Probe::transverse);
+  REQUIRE(sep.rows.size() == 2);
+  const std::size_t symmetric = b.signals[0].part, dipole = b.signals[1].part;
+  CHECK(angle_function_text(FourierTerm{sep.rows[0].k, sep.rows[0].sine, {}}) == "cos(phi)");
+  CHECK(sep.rows[0].parts == std::vector<std::size_t>{symmetric, dipole});
+  CHECK(angle_function_text(FourierTerm{sep.rows[1].k, sep.rows[1].sine, {}}) == "cos(3*phi)");
+  CHECK(sep.rows[1].parts == std::vector<std::size_t>{symmetric});
+
+  // A one-mirror group given directly: the same split, and the JSON carries it.
+  auto j = run_cli({"sample", "m", "--response", "second-order-conductivity", "--bar", "rotating", "-f", "json"});
+  REQUIRE(j.exit_code == 0);
+  const std::size_t at = j.out.find("\"separations\"");
+  REQUIRE(at != std::string::npos);
+  const std::size_t three = j.out.find("\"function\" : \"sin(3*phi)\"", at);
+  REQUIRE(three != std::string::npos);
+  const std::size_t parts = j.out.find("\"parts\"", three);
+  CHECK(j.out.find("fully symmetric", parts) < j.out.find(']', parts));
+  CHECK(j.out.find("Hall part", parts) > j.out.find(']', parts));
 }
 
 TEST_CASE("CLI: bars and layouts from options and from a scenario file, in every format", "[bar][cli]") {

@@ -119,3 +119,52 @@ TEST_CASE("the plotted RA-SHG curves peak where the exact expression says", "[fi
   CHECK(j.out.find("\"figures\"") != std::string::npos);
   CHECK(j.out.find("\"x_step_deg\"") != std::string::npos);
 }
+
+// The figures are computed once and handed to every writer (report_figures): the
+// JSON samples, the text list and the HTML pictures name the same figures, and a
+// [figures] value no figure uses fails the same way whatever the format.
+TEST_CASE("every report format carries the same figures, and refuses a bad [figures] value alike", "[figures]") {
+  TempDir dir;
+  const std::string example = std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/magnetised-film-optics.toml";
+  std::string text = read_file(example);
+  const std::size_t at = text.find("[figures]\n");
+  REQUIRE(at != std::string::npos);
+  const std::string bad_path = (dir / "bad-values.toml").string();
+  {
+    std::ofstream bad(bad_path);
+    bad << text.substr(0, at) << "[figures]\nvalues = { chi_qqq = 1 }\n" << text.substr(at + 10);
+  }
+  for (const char* format : {"text", "markdown", "latex", "json", "html"}) {
+    INFO(format);
+    auto r = run_cli({"run", bad_path, "-f", format});
+    CHECK(r.exit_code == 2);
+    CHECK(r.err.find("no figure has a parameter 'chi_qqq'") != std::string::npos);
+    CHECK(r.err.find("bad-values.toml") != std::string::npos);
+    CHECK(r.out.empty());
+  }
+
+  auto json = run_cli({"run", example, "-f", "json"});
+  REQUIRE(json.exit_code == 0);
+  std::vector<std::string> stems;
+  for (std::size_t p = json.out.find("\"file_stem\""); p != std::string::npos; p = json.out.find("\"file_stem\"", p + 1)) {
+    const std::size_t open = json.out.find('"', json.out.find(':', p)) + 1;
+    stems.push_back(json.out.substr(open, json.out.find('"', open) - open));
+  }
+  REQUIRE(stems.size() == 7); // three SHG setups, their sources (examples/magnetised-film-optics.toml)
+  auto listed = run_cli({"run", example, "-f", "markdown"});
+  REQUIRE(listed.exit_code == 0);
+  const std::size_t list = listed.out.find("## figures");
+  REQUIRE(list != std::string::npos);
+  for (const auto& s : stems) CHECK(listed.out.find("`" + s + "`", list) != std::string::npos);
+  auto page = run_cli({"run", example, "-f", "html"});
+  REQUIRE(page.exit_code == 0);
+  std::size_t pictures = 0;
+  for (std::size_t p = page.out.find("<figure id=\"figure-"); p != std::string::npos; p = page.out.find("<figure id=\"figure-", p + 1))
+    ++pictures;
+  CHECK(pictures == stems.size());
+  // A scenario without [figures]: no figures in JSON or text, but the page draws them.
+  const std::string plain = std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml";
+  CHECK(run_cli({"run", plain, "-f", "json"}).out.find("\"figures\"") == std::string::npos);
+  CHECK(run_cli({"run", plain, "-f", "markdown"}).out.find("## figures") == std::string::npos);
+  CHECK(run_cli({"run", plain, "-f", "html"}).out.find("<figure id=\"figure-1\"") != std::string::npos);
+}

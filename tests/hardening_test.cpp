@@ -6,6 +6,8 @@
 
 #include <catch2/catch.hpp>
 
+#include <algorithm>
+
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -116,6 +118,31 @@ TEST_CASE("hardening: domain reports are capped, JSON keeps every variant", "[ha
        p = json.out.find("\"representative\"", p + 1))
     ++reps;
   CHECK(reps == 12);
+}
+
+// The caps count relations, not characters, so the text, Markdown and LaTeX
+// reports cut the same cells and averages at the same relation.
+TEST_CASE("hardening: every text format caps the same relations", "[hardening]") {
+  // A polar distortion along [111] of m-3m1' leaves 3m1': 4 variants of a rank-5 tensor.
+  const std::vector<std::string> base = {"sample", "m-3m", "--lower", "polar:[111]", "--tensor", "V5", "--domains"};
+  std::vector<std::vector<std::string>> cuts;
+  for (const char* f : {"text", "markdown", "latex"}) {
+    auto args = base;
+    args.insert(args.end(), {"-f", f});
+    const auto r = run_cli(args);
+    REQUIRE(r.exit_code == 0);
+    std::vector<std::string> found;
+    for (std::size_t p = r.out.find("... "); p != std::string::npos; p = r.out.find("... ", p + 1)) {
+      const std::size_t end = r.out.find(';', p);
+      if (end != std::string::npos && r.out.compare(end - 8, 8, "relation") == 0) found.push_back(r.out.substr(p, end - p));
+      if (end != std::string::npos && r.out.compare(end - 9, 9, "relations") == 0) found.push_back(r.out.substr(p, end - p));
+    }
+    cuts.push_back(found);
+  }
+  REQUIRE(cuts[0].size() >= 4); // a cell per variant and the average
+  CHECK(cuts[1] == cuts[0]);
+  CHECK(cuts[2] == cuts[0]);
+  CHECK(std::find(cuts[0].begin(), cuts[0].end(), "... 1 more relation") != cuts[0].end()); // singular
 }
 
 TEST_CASE("hardening: output is byte-identical across runs", "[hardening]") {

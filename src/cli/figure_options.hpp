@@ -87,17 +87,18 @@ inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, con
   std::vector<FigureFormat> formats;
   for (const auto& name : spec.formats) formats.push_back(parse_figure_format(name, spec.where));
   if (formats.empty()) formats = {FigureFormat::svg, FigureFormat::pdf};
-  std::vector<FigureData> figures;
-  if (!spec.directory.empty()) figures = scenario_figures(r, figure_settings(spec));
-  for (auto& f : figures)
-    f.column = look.column == "single" ? FigureColumn::single
-               : look.column == "double" ? FigureColumn::double_column
-                                         : FigureColumn::automatic;
+  // Computed once: every writer prints the same figures, and the files are drawn from them.
+  ReportFigures figures = report_figures(r, out.format == "html");
+  if (figures)
+    for (auto& f : *figures)
+      f.column = look.column == "single" ? FigureColumn::single
+                 : look.column == "double" ? FigureColumn::double_column
+                                           : FigureColumn::automatic;
   std::string report;
-  if (out.format == "html") report = write_scenario_html(r, observations, {report_date(), command_line()});
+  if (out.format == "html") report = write_scenario_html(r, *figures, observations, {report_date(), command_line()});
   else if (brief) report = write_scenario_brief(r, parse_format(out.format), observations);
-  else if (observations) report = write_scenario_with_observations(*observations, parse_format(out.format));
-  else report = write_scenario(r, parse_format(out.format));
+  else if (observations) report = write_scenario_with_observations(*observations, figures, parse_format(out.format));
+  else report = write_scenario(r, figures, parse_format(out.format));
   if (spec.directory.empty()) {
     emit(out, report);
     return;
@@ -105,11 +106,11 @@ inline void emit_scenario(const OutputOptions& out, const ScenarioResult& r, con
   // The report and the figures are committed together: a figure that cannot be
   // written leaves the old report in place as well.
   OutputBatch batch;
-  std::vector<std::string> written = write_figures(figures, spec.directory, formats, &batch, look.dpi ? look.dpi : 300);
+  std::vector<std::string> written = write_figures(*figures, spec.directory, formats, &batch, look.dpi ? look.dpi : 300);
   batch.add(out.output, out.format == "text" ? wrap_text(report, text_width()) : report);
   batch.commit();
   if (out.output != "-") std::cerr << "tensorsieve: wrote " << out.output << "\n";
-  std::cerr << "tensorsieve: wrote " << counted(figures.size(), "figure") << ", " << counted(written.size(), "file") << ", into "
+  std::cerr << "tensorsieve: wrote " << counted(figures->size(), "figure") << ", " << counted(written.size(), "file") << ", into "
             << spec.directory << "\n";
 }
 

@@ -349,4 +349,9 @@ std::vector<FigureData> scenario_figures(const ScenarioResult& r, const FigureSe
   return out;
 }
 
+ReportFigures report_figures(const ScenarioResult& r, bool page) {
+  if (!r.scenario.figures.present && !page) return std::nullopt;
+  return scenario_figures(r, figure_settings(r.scenario.figures));
+}
+
 } // namespace ts

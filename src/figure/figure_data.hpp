@@ -81,4 +81,12 @@ FigureSettings figure_settings(const FigureSpec& spec);
 // that no figure uses.
 std::vector<FigureData> scenario_figures(const ScenarioResult& r, const FigureSettings& settings);
 
+// The figures a report carries, computed once and handed to every writer; nullopt
+// when the report has none. The one rule: a report carries its figures when the
+// scenario asks for them (a [figures] table or any figure option), and a page
+// (HTML) always does, its pictures being its figures. So a bad [figures] value
+// fails the same way in every format.
+using ReportFigures = std::optional<std::vector<FigureData>>;
+ReportFigures report_figures(const ScenarioResult& r, bool page);
+
 } // namespace ts

@@ -134,25 +134,15 @@ std::string zero_text(const std::vector<int>& z) {
   return "φ = " + join(s, ", ");
 }
 
-// Which Fourier terms a probe shows in which part: terms seen in one part only tell it apart.
-std::string separation_text(const ScenarioResult& r, const BarResult& b, Probe probe, int order, Format f) {
-  std::map<std::string, std::vector<std::string>> who;
-  std::vector<std::string> names;
-  for (const auto& s : b.signals) {
-    if (s.signal.current_order != order) continue;
-    const ProbeSignal& p = probe == Probe::longitudinal ? s.signal.longitudinal : s.signal.transverse;
-    if (!p.reads()) continue;
-    std::string name = r.parts[s.part].response_id + " / " + r.parts[s.part].part_label;
-    names.push_back(name);
-    for (const auto& t : p.terms) {
-      auto& v = who[with_field_role(function_text(t, f), s.signal.field_role)];
-      if (v.empty() || v.back() != name) v.push_back(name);
-    }
-  }
-  std::set<std::string> distinct(names.begin(), names.end());
-  if (distinct.size() < 2) return "";
+// The Fourier terms that tell the parts apart (BarResult::separations).
+std::string separation_text(const ScenarioResult& r, const BarSeparation& sep, Format f) {
   std::vector<std::vector<std::string>> rows;
-  for (const auto& [fn, v] : who) rows.push_back({fn, prose(join(v, "; "), f)});
+  for (const auto& row : sep.rows) {
+    std::vector<std::string> names;
+    for (std::size_t k : row.parts) names.push_back(r.parts[k].response_id + " / " + r.parts[k].part_label);
+    rows.push_back({with_field_role(function_text(FourierTerm{row.k, row.sine, {}}, f), row.field_role),
+                    prose(join(names, "; "), f)});
+  }
   return grid({"angle function", "parts that show it"}, rows, f);
 }
 
@@ -352,16 +342,11 @@ std::string write_bars(const ScenarioResult& r, Format f) {
       os << "\n";
     }
     write_unread(os, r, b, f);
-    std::set<int> orders;
-    for (const auto& s : b.signals) orders.insert(s.signal.current_order);
-    for (int n : orders)
-      for (Probe p : {Probe::longitudinal, Probe::transverse}) {
-        std::string t = separation_text(r, b, p, n, f);
-        if (t.empty()) continue;
-        os << (f == Format::markdown ? "*" : "") << prose("order I^" + std::to_string(n) + ", " + probe_name(p), f)
-           << ": Fourier terms that tell the parts apart" << (f == Format::markdown ? "*" : "") << line(f) << "\n"
-           << t << "\n";
-      }
+    for (const auto& sep : b.separations)
+      os << (f == Format::markdown ? "*" : "")
+         << prose("order I^" + std::to_string(sep.current_order) + ", " + probe_name(sep.probe), f)
+         << ": Fourier terms that tell the parts apart" << (f == Format::markdown ? "*" : "") << line(f) << "\n"
+         << separation_text(r, sep, f) << "\n";
   }
   return os.str();
 }
@@ -426,6 +411,34 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
   return os.str();
 }
 
+namespace {
+
+// Per current order and probe read by two parts or more: each angle function and
+// the parts (response and part label) that show it.
+toml::array separations_json(const ScenarioResult& r, const BarResult& b) {
+  toml::array out;
+  for (const auto& sep : b.separations) {
+    toml::array rows;
+    for (const auto& row : sep.rows) {
+      toml::array parts;
+      for (std::size_t k : row.parts)
+        parts.push_back(toml::table{{"response", r.parts[k].response_id}, {"part", r.parts[k].part_label}});
+      const FourierTerm function{row.k, row.sine, {}};
+      // As in the signals' terms: phiB and thetaB, with the role beside them.
+      rows.push_back(toml::table{{"function", angle_function_text(function, false)},
+                                 {"function_latex", angle_function_text(function, true)},
+                                 {"field_angles_of", row.field_role == "M" ? "magnetisation" : "field"},
+                                 {"parts", parts}});
+    }
+    out.push_back(toml::table{{"current_order", sep.current_order},
+                              {"probe", sep.probe == Probe::longitudinal ? "longitudinal" : "transverse"},
+                              {"rows", rows}});
+  }
+  return out;
+}
+
+} // namespace
+
 toml::array bars_json(const ScenarioResult& r) {
   toml::array out;
   for (const auto& b : r.bars) {
@@ -485,7 +498,8 @@ toml::array bars_json(const ScenarioResult& r) {
                               {"field", field_geometry_name(m.field)},
                               {"field_label", m.field_label},
                               {"waveform", m.waveform == Waveform::sine ? "sine" : "cosine"},
-                              {"signals", sigs}});
+                              {"signals", sigs},
+                              {"separations", separations_json(r, b)}});
   }
   return out;
 }

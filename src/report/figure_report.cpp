@@ -51,4 +51,34 @@ toml::array figures_json(const std::vector<FigureData>& figures) {
   return out;
 }
 
+namespace {
+
+// A file name in code type; in LaTeX it may break after each hyphen, since a
+// figure's name runs to sixty characters and a typewriter word never breaks.
+std::string file_stem_text(const std::string& stem, Format f) {
+  if (f != Format::latex) return inline_code(stem, f);
+  std::string out;
+  for (char c : inline_code(stem, f)) out += c == '-' ? std::string("-\\allowbreak{}") : std::string(1, c);
+  return out;
+}
+
+} // namespace
+
+std::string write_figures_list(const std::vector<FigureData>& figures, Format f) {
+  std::string out = "\n" + section_heading("figures", f);
+  if (figures.empty())
+    return out + as_text("no figure: nothing in this scenario is drawn against an angle", f) + "\n";
+  std::vector<std::vector<std::string>> rows;
+  for (std::size_t i = 0; i < figures.size(); ++i)
+    rows.push_back({std::to_string(i + 1), file_stem_text(figures[i].stem, f), as_text(figures[i].title, f)});
+  const std::vector<std::string> header = {"figure", "file name (without extension)", "shows"};
+  // A long file name cannot break inside a LaTeX table cell: one list item per figure there.
+  out += f == Format::latex ? row_list(header, rows) : grid(header, rows, f);
+  out += "\n" + std::string(f == Format::latex ? "\\noindent " : "") +
+         as_text("Parameter values in the figures are illustrative, not predictions; each figure's caption lists them.",
+                 f) +
+         "\n";
+  return out;
+}
+
 } // namespace ts

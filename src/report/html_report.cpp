@@ -53,8 +53,7 @@ std::string inline_svg(std::string svg, const std::string& prefix) {
   return svg;
 }
 
-void figures_section(const ScenarioResult& r, std::ostream& os) {
-  std::vector<FigureData> figures = scenario_figures(r, figure_settings(r.scenario.figures));
+void figures_section(const std::vector<FigureData>& figures, std::ostream& os) {
   if (figures.empty()) return;
   os << "<h2>Figures</h2>\n<p>Parameter values in the figures are illustrative, not predictions.</p>\n";
   for (std::size_t i = 0; i < figures.size(); ++i) {
@@ -73,7 +72,8 @@ std::string html_stamp(const HtmlStamp& stamp) {
 }
 std::string html_inline_svg(std::string svg, const std::string& prefix) { return inline_svg(std::move(svg), prefix); }
 
-std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations, const HtmlStamp& stamp) {
+std::string write_scenario_html(const ScenarioResult& r, const std::vector<FigureData>& figures,
+                                const ObservationRun* observations, const HtmlStamp& stamp) {
   const Scenario& sc = r.scenario;
   const std::string title = sc.title.empty() ? "tensorsieve scenario" : sc.title;
   std::ostringstream os;
@@ -86,9 +86,10 @@ std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* o
   // test, layouts, observations) and cannot fall behind it.
   os << "<section id=\"summary\">\n<h2>Summary and verdicts</h2>\n"
      << markdown_to_html(without_title(write_scenario_brief(r, Format::markdown, observations)), 1) << "</section>\n";
-  const std::string full = observations ? write_scenario_with_observations(*observations, Format::markdown)
-                                        : write_scenario(r, Format::markdown);
-  figures_section(r, os); // the pictures before the long report, where a reader looks first
+  // The page draws the figures itself, so the Markdown report is asked for none.
+  const std::string full = observations ? write_scenario_with_observations(*observations, std::nullopt, Format::markdown)
+                                        : write_scenario(r, std::nullopt, Format::markdown);
+  figures_section(figures, os); // the pictures before the long report, where a reader looks first
   os << "<section id=\"report\">\n<h2>Report</h2>\n" << markdown_to_html(without_title(full), 1) << "</section>\n";
   os << "<footer>\n<p class=\"warn\">Safety</p>\n<p>Optical experiments of this kind use class 3B and class 4 lasers, "
         "often pulsed and invisible: wear eye protection rated for the wavelengths and powers in use, keep beams "

@@ -6,6 +6,7 @@
 // offline in any browser. The footer carries the safety notes.
 #pragma once
 
+#include "figure/figure_data.hpp"
 #include "scenario/observation_run.hpp"
 #include "scenario/scenario_run.hpp"
 
@@ -19,10 +20,11 @@ struct HtmlStamp {
   std::string date, command;
 };
 
-// With `observations` (a run of a scenario with [[observation]] tables, whose
-// scenario is `r`), the page also answers them.
-std::string write_scenario_html(const ScenarioResult& r, const ObservationRun* observations = nullptr,
-                                const HtmlStamp& stamp = {});
+// `figures` are the page's pictures (report_figures(r, true)). With `observations`
+// (a run of a scenario with [[observation]] tables, whose scenario is `r`), the
+// page also answers them.
+std::string write_scenario_html(const ScenarioResult& r, const std::vector<FigureData>& figures,
+                                const ObservationRun* observations = nullptr, const HtmlStamp& stamp = {});
 
 // The style sheet of the pages, the stamp line (version, date, command; HTML), and
 // an SVG made safe to inline in a page (its ids prefixed), shared with the page of

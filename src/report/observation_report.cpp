@@ -175,9 +175,9 @@ std::string write_observations(const ObservationRun& run, Format f) {
   return finish(os.str(), f);
 }
 
-std::string write_scenario_with_observations(const ObservationRun& run, Format f) {
+std::string write_scenario_with_observations(const ObservationRun& run, const ReportFigures& figures, Format f) {
   if (f == Format::json) {
-    toml::table root = scenario_json(run.scenario);
+    toml::table root = scenario_json(run.scenario, figures);
     root.insert("observations", observations_json(run));
     return json_text(root);
   }
@@ -188,7 +188,7 @@ std::string write_scenario_with_observations(const ObservationRun& run, Format f
              f)
      << "\n";
   write_answers(run, f, 3, os);
-  return write_scenario(run.scenario, f) + finish(os.str(), f);
+  return write_scenario(run.scenario, figures, f) + finish(os.str(), f);
 }
 
 } // namespace ts

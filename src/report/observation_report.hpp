@@ -3,6 +3,7 @@
 // with what would produce each and what equal domains do to it.
 #pragma once
 
+#include "figure/figure_data.hpp"
 #include "report/report_format.hpp"
 #include "scenario/observation_run.hpp"
 
@@ -31,6 +32,6 @@ std::string write_observations(const ObservationRun& run, Format format);
 // The scenario report of `run` followed by the answers to its observations, for
 // `tensorsieve run` of a scenario with [[observation]] tables; in JSON, the
 // scenario's object with an "observations" array (as in write_observations).
-std::string write_scenario_with_observations(const ObservationRun& run, Format format);
+std::string write_scenario_with_observations(const ObservationRun& run, const ReportFigures& figures, Format format);
 
 } // namespace ts

@@ -55,26 +55,9 @@ std::string source_title(const ScenarioResult& r, const ShgSource& s) {
 
 std::string amplitude_text(const ScenarioResult& r, const ShgSource& s, std::size_t channel, Format f) {
   const AllowedForm& form = r.parts[s.part].forms.back();
-  const std::vector<OpticalTerm> terms = optical_terms(s.channels[channel]);
+  const std::vector<OpticalTerm>& terms = s.signals[channel].terms;
   return f == Format::latex ? "$" + optical_amplitude_text(terms, form, TextStyle::latex) + "$"
                             : optical_amplitude_text(terms, form, TextStyle::plain);
-}
-
-std::vector<Harmonic> amplitude_harmonics(const ChannelAmplitude& a) {
-  std::vector<Harmonic> hs;
-  for (const auto& t : optical_terms(a)) hs.push_back({t.k, t.sine});
-  return hs;
-}
-
-// Channels in which no source radiates, for every parameter value.
-std::vector<std::string> dark_channels(const ShgResult& s) {
-  std::vector<std::string> out;
-  for (std::size_t c = 0; c < s.measurement.channels.size(); ++c) {
-    bool any = false;
-    for (const auto& src : s.sources) any = any || src.channels[c].radiates();
-    if (!any) out.push_back(s.measurement.channels[c].name);
-  }
-  return out;
 }
 
 std::string terms_text(const std::vector<FourierTerm>& terms, const AllowedForm& form, Format f) {
@@ -116,19 +99,13 @@ std::string write_shg(const ScenarioResult& r, Format f) {
         }
         std::string amp = amplitude_text(r, src, c, f);
         if (f == Format::markdown) amp = "`" + amp + "`";
-        rows.push_back({m.channels[c].name, amp, harmonics_text(amplitude_harmonics(a), f),
-                        harmonics_text(product_harmonics(a, a), f)});
+        rows.push_back({m.channels[c].name, amp, harmonics_text(src.signals[c].amplitude_harmonics, f),
+                        harmonics_text(src.signals[c].intensity_harmonics, f)});
       }
       os << grid({"channel", "amplitude A", "harmonics of A", "harmonics of the intensity"}, rows, f) << "\n";
     }
-    std::vector<std::string> dark = dark_channels(s);
     os << bullet(f) << prose("dark for every source and every parameter value: ", f)
-       << (dark.empty() ? std::string("none") : [&] {
-            std::string d;
-            for (const auto& n : dark) d += (d.empty() ? "" : ", ") + n;
-            return d;
-          }())
-       << line(f);
+       << (s.dark_channels.empty() ? std::string("none") : join(s.dark_channels, ", ")) << line(f);
     if (s.interference.empty())
       os << bullet(f) << prose("no i-type and c-type sources radiate into the same channel: no domain contrast", f)
          << line(f);
@@ -261,14 +238,13 @@ toml::array shg_json(const ScenarioResult& r) {
       const AllowedForm& form = r.parts[src.part].forms.back();
       toml::array channels;
       for (std::size_t c = 0; c < m.channels.size(); ++c) {
-        const ChannelAmplitude& a = src.channels[c];
-        const std::vector<OpticalTerm> terms = optical_terms(a);
+        const ShgChannelSignal& signal = src.signals[c];
         channels.push_back(toml::table{{"channel", m.channels[c].name},
-                                       {"radiates", a.radiates()},
-                                       {"amplitude", optical_amplitude_text(terms, form, TextStyle::plain)},
-                                       {"amplitude_latex", optical_amplitude_text(terms, form, TextStyle::latex)},
-                                       {"amplitude_harmonics", harmonics_json(amplitude_harmonics(a))},
-                                       {"intensity_harmonics", harmonics_json(product_harmonics(a, a))}});
+                                       {"radiates", src.channels[c].radiates()},
+                                       {"amplitude", optical_amplitude_text(signal.terms, form, TextStyle::plain)},
+                                       {"amplitude_latex", optical_amplitude_text(signal.terms, form, TextStyle::latex)},
+                                       {"amplitude_harmonics", harmonics_json(signal.amplitude_harmonics)},
+                                       {"intensity_harmonics", harmonics_json(signal.intensity_harmonics)}});
       }
       sources.push_back(toml::table{{"response", r.parts[src.part].response_id},
                                     {"part", r.parts[src.part].part_label},
@@ -284,7 +260,7 @@ toml::array shg_json(const ScenarioResult& r) {
                                          {"channels", per}});
     }
     toml::array dark;
-    for (const auto& d : dark_channels(s)) dark.push_back(d);
+    for (const auto& d : s.dark_channels) dark.push_back(d);
     toml::table t{{"name", m.name},
                   {"geometry", optics_mode_name(m.mode)},
                   {"azimuth", m.azimuth_rotating ? std::string("rotating") : std::to_string(m.azimuth_deg)},

@@ -73,9 +73,12 @@ std::string variant_component(const std::string& symbol, std::size_t variant, Te
   return symbol + "⁽" + sup + "⁾";
 }
 
-std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f,
-                                   const AllowedForm* params = nullptr, const ParamTensor* reference = nullptr,
-                                   std::size_t variant = 0) {
+// Every component of a tensor as a relation "T_ij = combination", or with a
+// reference tensor only those that differ from it; a one-item list saying so when
+// there are none.
+std::vector<std::string> tensor_component_relations(const ParamTensor& t, const AllowedForm& form, Format f,
+                                                    const AllowedForm* params = nullptr,
+                                                    const ParamTensor* reference = nullptr, std::size_t variant = 0) {
   TextStyle style = f == Format::latex ? TextStyle::latex : TextStyle::plain;
   auto lhs = [&](int c) { return variant_component(symbol_text(form.component_name(c), style), variant, style); };
   std::vector<std::string> parts;
@@ -91,8 +94,26 @@ std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form
     std::string relation = lhs(c) + " = " + combination_text(params ? *params : form, t.components[c], style);
     parts.push_back(style == TextStyle::latex ? "$" + relation + "$" : relation); // math mode inside a table cell
   }
-  if (parts.empty()) return reference ? "as variant 1" : "all components vanish";
-  return join(parts, "; ");
+  if (parts.empty()) parts.push_back(reference ? "as variant 1" : "all components vanish");
+  return parts;
+}
+
+std::string tensor_components_text(const ParamTensor& t, const AllowedForm& form, Format f,
+                                   const AllowedForm* params = nullptr) {
+  return join(tensor_component_relations(t, form, f, params), "; ");
+}
+
+// A rank-6 tensor over 96 variants would print a gigabyte: a person reads the first
+// relations of a cell or an average, the rest (and every component) is in --format
+// json. The cap counts relations, so every format shows the same ones.
+constexpr std::size_t kShownRelations = 40;
+
+std::vector<std::string> first_relations(std::vector<std::string> relations) {
+  if (relations.size() <= kShownRelations) return relations;
+  const std::size_t more = relations.size() - kShownRelations;
+  relations.resize(kShownRelations);
+  relations.push_back("... " + counted(more, "more relation") + "; --format json lists every component");
+  return relations;
 }
 
 // A tensor given as combinations of parameters, written as a form: components with
@@ -143,22 +164,15 @@ std::vector<std::string> grouped_form_relations(const ParamTensor& t, const Allo
   return parts;
 }
 
-std::string grouped_form_text(const ParamTensor& t, const AllowedForm& form, Format f, bool averaged) {
-  return join(grouped_form_relations(t, form, f, averaged), "; ");
-}
-
 // The average after "average over ...:": on the same line when it is short, else one
-// relation a line (LaTeX wraps a paragraph itself), at most kShownLines of them.
+// relation a line (LaTeX wraps a paragraph itself), at most kShownRelations of them.
 std::string average_text(const std::vector<std::string>& relations, Format f) {
-  constexpr std::size_t kShortLine = 100, kShownLines = 40;
-  const std::string one_line = join(relations, "; ");
+  constexpr std::size_t kShortLine = 100;
+  const std::vector<std::string> shown = first_relations(relations);
+  const std::string one_line = join(shown, "; ");
   if (f == Format::latex || one_line.size() <= kShortLine) return " " + one_line + "\n";
   std::string out = "\n";
-  for (std::size_t i = 0; i < relations.size() && i < kShownLines; ++i)
-    out += (f == Format::markdown ? "- " : "  ") + relations[i] + "\n";
-  if (relations.size() > kShownLines)
-    out += (f == Format::markdown ? "- " : "  ") + std::string("... ") + std::to_string(relations.size() - kShownLines) +
-           " more relations; --format json lists every component\n";
+  for (const auto& relation : shown) out += (f == Format::markdown ? "- " : "  ") + relation + "\n";
   return out;
 }
 
@@ -170,7 +184,7 @@ std::string fractions_text(const DomainReport& d) {
 
 } // namespace
 
-toml::table scenario_json(const ScenarioResult& r) {
+toml::table scenario_json(const ScenarioResult& r, const ReportFigures& figures) {
   const auto& sc = r.scenario;
   const LatticeKind lattice = r.chain.front().group.lattice();
   toml::table root;
@@ -271,15 +285,15 @@ toml::table scenario_json(const ScenarioResult& r) {
   if (!r.kerr.empty()) root.insert("magneto_optics", kerr_json(r));
   if (!r.pump_probe.empty()) root.insert("pump_probe", pump_probe_json(r));
   if (!r.photocurrents.empty()) root.insert("photocurrents", photocurrent_json(r));
-  if (sc.figures.present) root.insert("figures", figures_json(scenario_figures(r, figure_settings(sc.figures))));
+  if (figures) root.insert("figures", figures_json(*figures));
   return root;
 }
 
-std::string write_scenario(const ScenarioResult& r, Format f) {
+std::string write_scenario(const ScenarioResult& r, const ReportFigures& figures, Format f) {
   const auto& sc = r.scenario;
   const LatticeKind lattice = r.chain.front().group.lattice();
   const std::string frame_text = "x ∥ " + r.frame_labels[0] + ", y ∥ " + r.frame_labels[1] + ", z ∥ " + r.frame_labels[2];
-  if (f == Format::json) return json_text(scenario_json(r));
+  if (f == Format::json) return json_text(scenario_json(r, figures));
 
   std::ostringstream os;
   os << section_heading(sc.title.empty() ? "tensorsieve scenario" : sc.title, f, 1);
@@ -386,18 +400,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       os << section_heading("domains: " + std::to_string(d.analysis.variants.size()) + " variants of " + dg + " in " +
                         group_name(r.chain[d.from_step]) + " (spontaneous steps only; applied fields form no domains)",
                     f, 3);
-      // A rank-6 tensor over 96 variants would print a gigabyte: a person reads the
-      // first variants, the rest (and every component) is in --format json.
-      constexpr std::size_t kShownVariants = 8, kShownCharacters = 2000;
-      auto capped = [&](std::string text) {
-        if (text.size() <= kShownCharacters) return text;
-        // cut between two relations, so a LaTeX $...$ pair stays whole
-        std::size_t cut = text.rfind("; ", kShownCharacters);
-        if (cut == std::string::npos || cut == 0) cut = kShownCharacters;
-        while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80) --cut;
-        return text.substr(0, cut) + " ... (" + std::to_string(text.size() - cut) +
-               " more characters; --format json lists every component)";
-      };
+      constexpr std::size_t kShownVariants = 8; // the rest, like the relations beyond kShownRelations, in JSON
       // With applied fields, what the variants show in the field comes first: the
       // zero-field rows (often all zero) would otherwise read as the verdict.
       const std::size_t shown = std::min(d.analysis.variants.size(), kShownVariants);
@@ -410,7 +413,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
         std::vector<std::vector<std::string>> frows;
         for (std::size_t v = 0; v < t.variants.size() && v < shown; ++v)
           frows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                           capped(tensor_components_text(t.variants[v], d.form, f, &t.form))});
+                           join(first_relations(tensor_component_relations(t.variants[v], d.form, f, &t.form)), "; ")});
         os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i", "components (sample frame)"}, frows, f);
         os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d) << " in the field:"
            << (f == Format::markdown ? "**" : "")
@@ -421,15 +424,16 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
       std::vector<std::vector<std::string>> vrows;
       for (std::size_t v = 0; v < shown; ++v)
         vrows.push_back({std::to_string(v + 1), code(d.analysis.variants[v].representative.symbol(lattice), f),
-                         capped(v ? tensor_components_text(d.analysis.variants[v].tensor, d.form, f, nullptr,
-                                                           &d.analysis.variants[0].tensor, v + 1)
-                                  : grouped_form_text(d.analysis.variants[0].tensor, d.form, f, false))});
+                         join(first_relations(v ? tensor_component_relations(d.analysis.variants[v].tensor, d.form, f,
+                                                                             nullptr, &d.analysis.variants[0].tensor, v + 1)
+                                                : grouped_form_relations(d.analysis.variants[0].tensor, d.form, f, false)),
+                              "; ")});
       os << grid({"variant", f == Format::latex ? "g\\_i" : "g_i",
                   "components of variant i in the parameters of variant 1 (from variant 2 on: only what differs)"},
                  vrows, f);
       if (shown < d.analysis.variants.size())
-        os << (f == Format::latex ? "% " : "  ") << "variants " << shown + 1 << " to " << d.analysis.variants.size()
-           << " are not printed here; --format json lists them all\n";
+        os << (f == Format::latex ? "\n\\noindent " : "  ") << "variants " << shown + 1 << " to "
+           << d.analysis.variants.size() << " are not printed here; --format json lists them all\n";
       os << "\n" << (f == Format::markdown ? "**" : "") << "average over " << fractions_text(d)
          << (in_field ? " at zero field:" : ":") << (f == Format::markdown ? "**" : "")
          << average_text(grouped_form_relations(d.analysis.average, d.form, f, true), f) << "\n";
@@ -437,6 +441,7 @@ std::string write_scenario(const ScenarioResult& r, Format f) {
   }
   os << write_bars(r, f) << write_probe_sums(r, f) << write_plans(r, f) << write_layouts(r, f) << write_shg(r, f)
      << write_kerr(r, f) << write_light_driven(r, f);
+  if (figures) os << write_figures_list(*figures, f);
   return finish(os.str(), f);
 }
 

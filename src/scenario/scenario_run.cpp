@@ -16,6 +16,8 @@
 #include <cmath>
 #include <map>
 #include <numeric>
+#include <set>
+#include <tuple>
 
 namespace ts {
 
@@ -258,9 +260,14 @@ ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const Response
            "local-field factors are defined for electric-dipole sources only, not for " + p.response_id + ": " +
                p.part_label,
            spec.where, "responses = [\"electric-dipole-shg\"] in this [[shg]] table (or --response electric-dipole-shg)");
-    ShgSource src{k, {}};
-    for (const auto& c : out.measurement.channels)
+    ShgSource src{k, {}, {}};
+    for (const auto& c : out.measurement.channels) {
       src.channels.push_back(shg_amplitude(*p.catalogue_part, p.forms.back(), channel_vectors(out.measurement, c)));
+      const ChannelAmplitude& a = src.channels.back();
+      ShgChannelSignal signal{optical_terms(a), {}, product_harmonics(a, a)};
+      for (const auto& t : signal.terms) signal.amplitude_harmonics.push_back({t.k, t.sine});
+      src.signals.push_back(std::move(signal));
+    }
     out.sources.push_back(std::move(src));
   }
   if (out.sources.empty())
@@ -281,6 +288,11 @@ ShgResult run_shg(const ShgSpec& spec, const ScenarioResult& res, const Response
       }
       if (any) out.interference.push_back(std::move(in));
     }
+  for (std::size_t c = 0; c < out.measurement.channels.size(); ++c) {
+    bool any = false;
+    for (const auto& src : out.sources) any = any || src.channels[c].radiates();
+    if (!any) out.dark_channels.push_back(out.measurement.channels[c].name);
+  }
   return out;
 }
 
@@ -395,6 +407,38 @@ std::string hexagonal_from_rhombohedral(const std::string& text, const std::stri
   std::string body;
   for (int i = 0; i < 3; ++i) body += (i && wide ? "," : "") + std::to_string(h[i]);
   return (plane ? "(" : "[") + body + (plane ? ")" : "]");
+}
+
+// Which angle functions each probe shows in which part, per current order: the
+// function is keyed by its frequency and kind, and by the field role only when it
+// involves the field angles (cos 2φ reads the same for a part in B and in M).
+std::vector<BarSeparation> bar_separations(const std::vector<BarPartSignal>& signals) {
+  std::set<int> orders;
+  for (const auto& s : signals) orders.insert(s.signal.current_order);
+  std::vector<BarSeparation> out;
+  for (int order : orders)
+    for (Probe probe : {Probe::longitudinal, Probe::transverse}) {
+      std::map<std::tuple<Frequency, bool, std::string>, std::vector<std::size_t>> who;
+      std::set<std::size_t> reading;
+      for (const auto& s : signals) {
+        if (s.signal.current_order != order) continue;
+        const ProbeSignal& p = probe == Probe::longitudinal ? s.signal.longitudinal : s.signal.transverse;
+        if (!p.reads()) continue;
+        reading.insert(s.part);
+        for (const auto& t : p.terms) {
+          const bool field_angles =
+              t.k[static_cast<int>(Angle::phi_b)] != 0 || t.k[static_cast<int>(Angle::theta_b)] != 0;
+          auto& parts = who[{t.k, t.sine, field_angles && s.signal.field_role == "M" ? "M" : ""}];
+          if (parts.empty() || parts.back() != s.part) parts.push_back(s.part);
+        }
+      }
+      if (reading.size() < 2) continue;
+      BarSeparation sep{order, probe, {}};
+      for (auto& [key, parts] : who)
+        sep.rows.push_back({std::get<0>(key), std::get<1>(key), std::get<2>(key), std::move(parts)});
+      out.push_back(std::move(sep));
+    }
+  return out;
 }
 
 } // namespace
@@ -734,6 +778,7 @@ ScenarioResult run_scenario(const Scenario& given) {
       br.unread.push_back({k, unread_reason(p)});
     }
     br.sum = probe_sum(probe_sum_inputs(res, spec.responses), br.measurement);
+    br.separations = bar_separations(br.signals);
     res.bars.push_back(std::move(br));
   }
 

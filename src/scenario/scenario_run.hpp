@@ -91,11 +91,27 @@ struct BarUnreadPart {
   std::string reason;
 };
 
+// The Fourier terms that tell the parts a bar reads apart: for one current order
+// and probe that two parts or more read, every angle function the probe shows
+// and the parts that show it; a function shown by one part alone separates it.
+struct BarSeparationRow {
+  Frequency k{};
+  bool sine = false;
+  std::string field_role;         // "M" when the field angles are those of the magnetisation
+  std::vector<std::size_t> parts; // indices into parts, in the order of the bar's signals
+};
+struct BarSeparation {
+  int current_order = 0;
+  Probe probe = Probe::longitudinal;
+  std::vector<BarSeparationRow> rows; // by frequency, cosine before sine
+};
+
 struct BarResult {
   BarMeasurement measurement;
   std::vector<BarPartSignal> signals;
   ProbeSum sum; // every mechanism together, per probe and harmonic, with the Joule background
   std::vector<BarUnreadPart> unread;
+  std::vector<BarSeparation> separations; // by current order, longitudinal first
 };
 
 struct LayoutResult {
@@ -134,9 +150,18 @@ struct DomainReport {
 };
 
 // What one SHG source part radiates into each channel of a setup.
+// What a source radiates into one channel, in the form every writer prints: the
+// amplitude as Fourier terms in the turning angle, and the harmonics of the
+// amplitude and of the intensity |A|² (exact: from the terms, not from samples).
+struct ShgChannelSignal {
+  std::vector<OpticalTerm> terms;
+  std::vector<Harmonic> amplitude_harmonics, intensity_harmonics;
+};
+
 struct ShgSource {
   std::size_t part = 0;                   // index into parts
   std::vector<ChannelAmplitude> channels; // one per channel of the measurement
+  std::vector<ShgChannelSignal> signals;  // one per channel, derived from `channels`
 };
 
 // An i-type and a c-type source that both radiate into a channel interfere:
@@ -151,6 +176,7 @@ struct ShgResult {
   OpticalMeasurement measurement;
   std::vector<ShgSource> sources;
   std::vector<ShgInterference> interference;
+  std::vector<std::string> dark_channels; // channels no source radiates into, for every parameter value
 };
 
 struct KerrResult {
