@@ -6,6 +6,7 @@
 
 #include <catch2/catch.hpp>
 
+#include <fstream>
 #include <map>
 
 using namespace ts::test;
@@ -219,5 +220,46 @@ TEST_CASE("formats: the same command twice gives identical bytes", "[formats]") 
       CHECK(a.out == b.out);
       if (std::string(formats[f]) == "json") CHECK_NOTHROW(parse_json(a.out));
     }
+  }
+}
+
+// What the text reports derive from the result (the bar's current density, a layout's
+// inseparable combinations, the Kerr verdict, whose angles a probe sum names) is in the
+// JSON too, and a form view that does not fit is refused in JSON as in text.
+TEST_CASE("json: carries what the text derives, and refuses what the text refuses", "[formats]") {
+  TempDir dir;
+  const std::string scenario = (dir / "bar.toml").string();
+  {
+    std::ofstream out(scenario);
+    out << "title = \"a bar with its size (invented)\"\nresponses = [\"anomalous-hall\", \"magneto-optic-kerr\"]\n"
+           "[crystal]\ngroup = \"4/mm'm'\"\n[sample]\ncut = \"(001)\"\nx = \"[100]\"\n"
+           "[[bar]]\nname = \"b\"\ncurrent = \"[100]\"\nfield = \"none\"\n"
+           "current_rms = 1e-3\nlength = 2e-4\nwidth = 5e-5\nthickness = 1e-8\n"
+           "[[kerr]]\nname = \"k\"\nmagnetisation = \"[001]\"\n";
+  }
+  const JsonValue j = run_json({"run", scenario, "-f", "json"});
+  const JsonValue& dims = j.at("bars").items.at(0).at("dimensions");
+  CHECK(dims.at("current_rms_A").number == Approx(1e-3));
+  CHECK(dims.at("current_density_rms_A_per_m2").number == Approx(1e-3 / (5e-5 * 1e-8))); // I/(w t) = 2e9 A/m²
+  const auto text = run_cli({"run", scenario});
+  REQUIRE(text.exit_code == 0);
+  CHECK(text.out.find("j_rms = 2e+09 A/m^2") != std::string::npos);
+  // 4/mm'm' admits a moment along z: polar Kerr allowed (common practice).
+  CHECK(j.at("magneto_optics").items.at(0).at("gyration_allowed").boolean);
+  CHECK(j.at("probe_sums").items.at(0).at("field_angles_of").text == "field");
+
+  const JsonValue ex = run_json({"run", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/strained-film.toml", "-f", "json"});
+  for (const auto& l : ex.at("layouts").items) {
+    CHECK(l.at("inseparable").is_integer());
+    CHECK(l.at("inseparable").number == l.at("parameters").number - static_cast<double>(l.at("unreadable").items.size()) -
+                                            l.at("rank").number);
+  }
+  CHECK(ex.at("probe_sums").items.at(0).at("field_angles_of").text == "magnetisation"); // the bar's eMChA in M
+
+  for (const char* format : {"text", "json"}) {
+    INFO(format);
+    auto r = run_cli({"form", "4mm", "V3", "--view", "matrix", "-f", format});
+    CHECK(r.exit_code == 2);
+    CHECK(r.err.find("the matrix view needs a rank-2 tensor") != std::string::npos);
   }
 }

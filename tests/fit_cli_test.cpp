@@ -170,3 +170,23 @@ TEST_CASE("fit: the figures draw the models the reports show, the accepted hypot
   CHECK(caption.find("m' (mirror' ⊥ [01-1])") != std::string::npos);
   CHECK(caption.find("3m1' (3") == std::string::npos); // ranked fourth, not accepted: not drawn
 }
+
+TEST_CASE("fit: reports name the scan as the scenario does, without this machine's folders", "[fit][cli]") {
+  // The scenario given by its absolute path: its scan is read from beside it, and every
+  // format names the scan as the scenario file does (threefold-film-scan.csv).
+  const std::string scenario = std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/threefold-film-scan.toml";
+  for (const char* format : {"text", "markdown", "latex", "json", "html"}) {
+    INFO(format);
+    auto r = run_cli({"fit", scenario, "-f", format});
+    REQUIRE(r.exit_code == 0);
+    CHECK(r.out.find("threefold-film-scan.csv") != std::string::npos);
+    CHECK(r.out.find(TENSORSIEVE_SOURCE_DIR) == std::string::npos);
+  }
+  // --data: the file as typed.
+  auto d = run_cli({"fit", scenario, "--data", std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/threefold-film-scan.csv",
+                    "--harmonic", "2", "--bar-geometry", "rotating:none"});
+  INFO(d.err);
+  REQUIRE(d.exit_code == 0);
+  CHECK(d.out.find("data: " + std::string(TENSORSIEVE_SOURCE_DIR) + "/examples/threefold-film-scan.csv") !=
+        std::string::npos);
+}

@@ -47,6 +47,7 @@ void setup_fit(CLI::App& app) {
     if (!o->spec.data.empty()) {
       FitSpec spec = o->spec;
       spec.name = "fit of " + spec.data;
+      spec.data_as_written = spec.data;
       spec.where = "--data " + spec.data;
       spec.bad_value = ErrorKind::usage;
       if (spec.harmonic < 0 || spec.harmonic > 5)

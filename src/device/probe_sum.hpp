@@ -100,6 +100,13 @@ struct ProbeSum {
   std::vector<ProbeReading> readings;  // only readings with a term, by harmonic then probe
   std::vector<std::string> silent;     // labels of parts that no probe of this bar reads, with why
   bool magnetisation_follows_field = false; // both B and M parts read the one direction of the bar
+  // Some mechanism is an expansion in the magnetisation: the bar's direction angles are
+  // then the magnetisation's (φ_M, θ_M; the field only saturates it).
+  bool angles_of_magnetisation() const {
+    for (const auto& m : mechanisms)
+      if (m.magnetisation_order > 0) return true;
+    return false;
+  }
 };
 
 // The Fourier content of a signal as exact vectors over the basis functions

@@ -408,7 +408,9 @@ void fit_transport(const ScenarioResult& res, const FitSpec& spec, const ScanTab
 FitResult fit_scan(const ScenarioResult& res, const FitSpec& spec, const ScanTable& data) {
   FitResult out;
   out.name = spec.name;
-  out.data = data.path;
+  // The file as the user named it: a report printed on one machine and read on another
+  // shows no folder of the first (the path itself is relative to the scenario).
+  out.data = spec.data_as_written.empty() ? data.path : spec.data_as_written;
   out.points = data.points();
   out.uncertainties = data.has(ScanQuantity::sigma);
   out.offset = spec.offset;

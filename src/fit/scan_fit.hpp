@@ -75,7 +75,7 @@ struct FitVerdict {
 };
 
 struct FitResult {
-  std::string name, data;            // the fit's name and its scan file
+  std::string name, data;            // the fit's name and its scan file as the user named it
   std::string kind;                  // "transport" or "SHG"
   std::string measurement;           // bar, probe, harmonic, reading, or the optical setup, in words
   std::string parent;                // the last sample group of the scenario

@@ -38,6 +38,11 @@ struct BarMeasurement {
   Waveform waveform = Waveform::sine;
   std::optional<double> current_rms, length, width, thickness; // A, m (optional, for numbers)
   std::string where;
+  // j_rms = I_rms/(w t) in A/m², when the current and the cross-section are given.
+  std::optional<double> current_density_rms() const {
+    if (!current_rms || !width || !thickness) return std::nullopt;
+    return *current_rms / (*width * *thickness);
+  }
 };
 
 // "rotating", "[uvw]" (a crystal direction in the plane), or an angle from

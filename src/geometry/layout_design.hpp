@@ -40,6 +40,8 @@ struct LayoutDesign {
   double condition = 0;                   // σ_max/σ_min of the design's rows (nonzero σ)
   std::vector<std::string> fields;        // field geometries used per bar
   bool exhaustive = true;                 // minimality proven by trying every smaller subset
+  // Combinations some candidate reads but no set of these candidates separates.
+  int inseparable() const { return parameters - static_cast<int>(unreadable.size()) - rank_all; }
 };
 
 // `fields` are field geometries (field_geometry names, [uvw] or in-plane:ANGLE); parts

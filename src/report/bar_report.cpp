@@ -270,7 +270,7 @@ std::string write_bars(const ScenarioResult& r, Format f) {
     if (m.current_rms && m.length && m.width && m.thickness) {
       char buf[160];
       std::snprintf(buf, sizeof buf, "bar: I_rms = %g A, L = %g m, w = %g m, t = %g m: j_rms = %g A/m^2", *m.current_rms,
-                    *m.length, *m.width, *m.thickness, *m.current_rms / (*m.width * *m.thickness));
+                    *m.length, *m.width, *m.thickness, *m.current_density_rms());
       os << bullet(f) << prose(buf, f) << line(f);
     }
     os << "\n";
@@ -369,10 +369,8 @@ std::string write_layouts(const ScenarioResult& r, Format f) {
       os << bullet(f) << d.parameters << " independent parameters; " << d.rank_all
          << " can be determined from planar bars";
       if (!d.unreadable.empty()) os << " (no bar reads " << prose(join(d.unreadable, ", "), f) << ")";
-      if (d.rank_all < d.parameters - static_cast<int>(d.unreadable.size()))
-        os << "; "
-           << counted(static_cast<std::size_t>(d.parameters - static_cast<int>(d.unreadable.size()) - d.rank_all),
-                      "further combination")
+      if (d.inseparable() > 0)
+        os << "; " << counted(static_cast<std::size_t>(d.inseparable()), "further combination")
            << " cannot be separated by these candidates";
       os << line(f);
       if (d.chosen.empty()) {
@@ -437,6 +435,18 @@ toml::array separations_json(const ScenarioResult& r, const BarResult& b) {
   return out;
 }
 
+// The bar's current and size as the scenario gives them (SI units), and j_rms: what
+// turns the exact signals into volts; an empty table when none is given.
+toml::table dimensions_json(const BarMeasurement& m) {
+  toml::table t;
+  if (m.current_rms) t.insert("current_rms_A", *m.current_rms);
+  if (m.length) t.insert("length_m", *m.length);
+  if (m.width) t.insert("width_m", *m.width);
+  if (m.thickness) t.insert("thickness_m", *m.thickness);
+  if (auto j = m.current_density_rms()) t.insert("current_density_rms_A_per_m2", *j);
+  return t;
+}
+
 } // namespace
 
 toml::array bars_json(const ScenarioResult& r) {
@@ -498,6 +508,7 @@ toml::array bars_json(const ScenarioResult& r) {
                               {"field", field_geometry_name(m.field)},
                               {"field_label", m.field_label},
                               {"waveform", m.waveform == Waveform::sine ? "sine" : "cosine"},
+                              {"dimensions", dimensions_json(m)},
                               {"signals", sigs},
                               {"separations", separations_json(r, b)}});
   }
@@ -533,6 +544,7 @@ toml::array layouts_json(const ScenarioResult& r) {
                                 {"parameters", d.parameters},
                                 {"rank", d.rank_all},
                                 {"unreadable", unread},
+                                {"inseparable", d.inseparable()},
                                 {"candidates", static_cast<std::int64_t>(d.candidates.size())},
                                 {"exhaustive", d.exhaustive},
                                 {"condition_number", d.condition},

@@ -89,6 +89,17 @@ struct ViewGrid {
   std::vector<std::vector<std::string>> rows;
 };
 
+// A view that does not fit the tensor is refused in every format, JSON included
+// (which prints no view), so a script meets the same error as a person.
+void check_view(const AllowedForm& f, View view) {
+  if (view == View::matrix && f.spec.rank != 2)
+    fail(ErrorKind::usage, "the matrix view needs a rank-2 tensor", "--view", "components, or dmatrix/voigt where they fit");
+  if (view == View::dmatrix && !has_dmatrix_view(f))
+    fail(ErrorKind::usage, "the d-matrix view needs a rank-3 tensor symmetric in its last two indices", "--view");
+  if (view == View::voigt && !has_voigt_view(f))
+    fail(ErrorKind::usage, "the Voigt view needs a rank-4 tensor symmetric in each index pair", "--view");
+}
+
 std::vector<ViewGrid> views_of(const AllowedForm& f, View view, TextStyle style) {
   std::vector<ViewGrid> out;
   const int rank = f.spec.rank;
@@ -96,12 +107,6 @@ std::vector<ViewGrid> views_of(const AllowedForm& f, View view, TextStyle style)
   bool want_matrix = rank == 2 && (view == View::automatic || view == View::matrix);
   bool want_d = has_dmatrix_view(f) && (view == View::automatic || view == View::dmatrix);
   bool want_voigt = has_voigt_view(f) && (view == View::automatic || view == View::voigt);
-  if (view == View::matrix && rank != 2)
-    fail(ErrorKind::usage, "the matrix view needs a rank-2 tensor", "--view", "components, or dmatrix/voigt where they fit");
-  if (view == View::dmatrix && !has_dmatrix_view(f))
-    fail(ErrorKind::usage, "the d-matrix view needs a rank-3 tensor symmetric in its last two indices", "--view");
-  if (view == View::voigt && !has_voigt_view(f))
-    fail(ErrorKind::usage, "the Voigt view needs a rank-4 tensor symmetric in each index pair", "--view");
   if (want_matrix) {
     ViewGrid g{"matrix (row i, column j)", {"", "x", "y", "z"}, {}};
     for (int i = 0; i < 3; ++i) {
@@ -219,6 +224,7 @@ void form_json(const AllowedForm& f, const GroupContext& g, const FrameContext& 
 }
 
 std::string write_form(const AllowedForm& f, const GroupContext& g, const FrameContext& fr, Format format, View view) {
+  check_view(f, view);
   if (format == Format::json) {
     toml::table t;
     form_json(f, g, fr, t);

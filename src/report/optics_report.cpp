@@ -150,9 +150,7 @@ std::string write_kerr(const ScenarioResult& r, Format f) {
       for (const auto& kr : k.kerr)
         rows.push_back({kr.geometry, prose(kr.reads, f), kr.allowed() ? "allowed" : "forbidden", terms_text(kr.terms, g, f)});
       os << grid({"geometry", "reads", "status", "signal"}, rows, f) << "\n";
-      bool any = false;
-      for (const auto& kr : k.kerr) any = any || kr.allowed();
-      if (!any)
+      if (!k.gyration_allowed())
         os << bullet(f)
            << prose("the group forbids a gyration vector: no Kerr rotation and no Faraday rotation in any geometry, "
                     "whatever the order (a grey group, or an antiferromagnet whose group admits no net moment)", f)
@@ -189,6 +187,7 @@ toml::array kerr_json(const ScenarioResult& r) {
                                   {"allowed", kr.allowed()},
                                   {"terms", fourier_terms_json(kr.terms, r.parts[*k.g_part].forms.back())}});
       t.insert("kerr", geo);
+      t.insert("gyration_allowed", k.gyration_allowed());
     }
     if (k.q_part) {
       toml::array v;

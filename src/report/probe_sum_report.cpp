@@ -90,9 +90,7 @@ std::string write_probe_sums(const ScenarioResult& r, Format f) {
     const ProbeSum& s = b.sum;
     // With the field and the magnetisation along one direction, its angles are named
     // after the magnetisation (the field only saturates it), as in the bar section.
-    bool any_m = false;
-    for (const auto& mech : s.mechanisms) any_m = any_m || mech.magnetisation_order > 0;
-    const bool m_only = any_m;
+    const bool m_only = s.angles_of_magnetisation();
     const std::string direction = m.field_label.empty() ? field_geometry_name(m.field) : m.field_label;
     os << heading(m.name + ": current " + m.current_label + "; " +
                       (m_only ? "field and magnetisation " + as_magnetisation_angles(direction) : "field " + direction) +
@@ -273,7 +271,8 @@ toml::array probe_sums_json(const ScenarioResult& r) {
                               {"mechanisms", mechanisms},
                               {"readings", readings},
                               {"not_read", silent},
-                              {"magnetisation_follows_field", s.magnetisation_follows_field}});
+                              {"magnetisation_follows_field", s.magnetisation_follows_field},
+                              {"field_angles_of", s.angles_of_magnetisation() ? "magnetisation" : "field"}});
   }
   return out;
 }

@@ -355,6 +355,7 @@ void read_fits(const toml::table& root, const std::string& path, Scenario& sc) {
     if (f.name.empty()) f.name = "fit " + std::to_string(sc.fits.size() + 1);
     // A relative path is read from the scenario's folder, so a scenario and its scan travel together.
     std::filesystem::path data = get_string(*t, "data", path, true, "a scan file (CSV, TSV), relative to this file", "[[fit]]");
+    f.data_as_written = data.string();
     if (data.is_relative()) data = std::filesystem::path(path).parent_path() / data;
     f.data = data.string();
     f.bar = get_string(*t, "bar", path, false, "a [[bar]] name or number");

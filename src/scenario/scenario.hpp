@@ -149,6 +149,7 @@ struct FigureSpec {
 struct FitSpec {
   std::string name;
   std::string data;                // scan file; in a scenario file, relative to the scenario
+  std::string data_as_written;     // the scan file as the scenario or --data names it: what reports print
   std::string bar;                 // [[bar]] name or 1-based number (transport); empty: the first bar
   std::string shg;                 // [[shg]] name or 1-based number (optical scans); empty: the first setup
   std::string probe = "transverse"; // longitudinal or transverse

@@ -189,6 +189,12 @@ struct KerrResult {
   // and whether the question's fixed magnetisation direction lies outside it.
   std::optional<AllowedForm> moment_form;
   bool magnetisation_outside_group = false;
+  // Some Kerr geometry is allowed: the group admits a gyration vector.
+  bool gyration_allowed() const {
+    for (const auto& k : kerr)
+      if (k.allowed()) return true;
+    return false;
+  }
 };
 
 // A vector response (effective field, current) per sample axis.
