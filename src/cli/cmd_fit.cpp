@@ -58,11 +58,14 @@ void setup_fit(CLI::App& app) {
       sc.fits = {spec};
     }
     const FitRun run = run_fits(sc);
-    const std::string report = html ? write_fits_html(run, {report_date(), command_line()}) : write_fits(run, f);
+    // The figures of every fit, computed once: the page draws them and --figures writes them.
+    std::vector<std::vector<FigureData>> per_fit;
+    if (html || !o->figures.empty())
+      for (std::size_t i = 0; i < run.fits.size(); ++i) per_fit.push_back(fit_figures(run.fits[i], "fit-" + std::to_string(i + 1)));
+    const std::string report = html ? write_fits_html(run, per_fit, {report_date(), command_line()}) : write_fits(run, f);
     if (!o->figures.empty()) {
       std::vector<FigureData> figures;
-      for (std::size_t i = 0; i < run.fits.size(); ++i)
-        for (auto& fig : fit_figures(run.fits[i], "fit-" + std::to_string(i + 1))) figures.push_back(std::move(fig));
+      for (const auto& fs : per_fit) figures.insert(figures.end(), fs.begin(), fs.end());
       // Figures first, all together: a figure that cannot be written leaves none half-written.
       OutputBatch batch;
       write_figures(figures, o->figures, {FigureFormat::svg, FigureFormat::pdf}, &batch);

@@ -1,7 +1,6 @@
 #include "report/fit_html.hpp"
 
 #include "figure/figure_draw.hpp"
-#include "figure/fit_figure.hpp"
 #include "report/fit_report.hpp"
 #include "report/html_math.hpp"
 #include "report/markdown_html.hpp"
@@ -10,7 +9,8 @@
 
 namespace ts {
 
-std::string write_fits_html(const FitRun& run, const HtmlStamp& stamp) {
+std::string write_fits_html(const FitRun& run, const std::vector<std::vector<FigureData>>& fit_figures,
+                            const HtmlStamp& stamp) {
   const std::string title = run.scenario.scenario.title.empty() ? "tensorsieve scan fits" : run.scenario.scenario.title;
   std::ostringstream os;
   os << "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>" << html_escape(title)
@@ -25,7 +25,7 @@ std::string write_fits_html(const FitRun& run, const HtmlStamp& stamp) {
        << markdown_to_html(section_heading("fit: " + r.name, Format::markdown, 2) +
                                write_fit_section(r, Format::markdown),
                            -1);
-    const auto figures = fit_figures(r, "fit-" + n);
+    const std::vector<FigureData>& figures = fit_figures.at(i);
     for (std::size_t k = 0; k < figures.size(); ++k)
       os << "<figure>\n"
          << html_inline_svg(render_figure(figures[k], FigureFormat::svg), "fit" + n + "-" + std::to_string(k + 1) + "-")
