@@ -123,7 +123,7 @@ TEST_CASE("hardening: domain reports are capped, JSON keeps every variant", "[ha
 // The caps count relations, not characters, so the text, Markdown and LaTeX
 // reports cut the same cells and averages at the same relation.
 TEST_CASE("hardening: every text format caps the same relations", "[hardening]") {
-  // A polar distortion along [111] of m-3m1' leaves 3m1': 4 variants of a rank-5 tensor.
+  // A polar distortion along [111] of m-3m1' leaves 3m1' (index 48/12): 4 variants of a rank-5 tensor (common practice).
   const std::vector<std::string> base = {"sample", "m-3m", "--lower", "polar:[111]", "--tensor", "V5", "--domains"};
   std::vector<std::vector<std::string>> cuts;
   for (const char* f : {"text", "markdown", "latex"}) {
